@@ -1,0 +1,68 @@
+import express from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type pg from 'pg';
+import type { DataSource } from 'typeorm';
+import { authRoutes } from './auth/auth.routes.js';
+import { loadCurrentUser } from './auth/current-user.js';
+import { OidcRelyingParty } from './auth/oidc.js';
+import { sessionMiddleware } from './auth/session.js';
+import type { Config } from './config/env.js';
+import { healthRoutes } from './features/health/health.routes.js';
+import { sitesRoutes } from './features/sites/sites.routes.js';
+import { trailRoutes } from './features/trail/trail.routes.js';
+import { meRoutes } from './features/users/me.routes.js';
+import { usersRoutes } from './features/users/users.routes.js';
+import { apiNotFound, errorHandler } from './middleware/error-handler.js';
+import { sameOrigin } from './middleware/same-origin.js';
+
+export interface AppDependencies {
+  config: Config;
+  dataSource: DataSource;
+  sessionPool: pg.Pool;
+  /** The built client (vite build); absent in API-only tests and in `npm run dev`. */
+  clientDir?: string;
+}
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp({ config, dataSource, sessionPool, clientDir }: AppDependencies): express.Express {
+  const app = express();
+  app.disable('x-powered-by');
+  if (config.trustProxy) app.set('trust proxy', config.trustProxy);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          // The sign-in redirect goes to the identity provider's origin.
+          'form-action': ["'self'", new URL(config.oidc.issuer).origin],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'frame-src': ["'self'", 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
+      },
+    }),
+  );
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use('/health', healthRoutes(dataSource));
+  api.use(sessionMiddleware(config, sessionPool));
+  api.use(sameOrigin(config.appUrl));
+  api.use(loadCurrentUser(dataSource));
+  api.use('/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
+  api.use('/me', meRoutes(dataSource));
+  api.use('/users', usersRoutes(dataSource));
+  api.use('/sites', sitesRoutes(dataSource));
+  api.use('/trail', trailRoutes(dataSource));
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  if (clientDir && existsSync(resolve(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // The client's router owns every other path (history mode).
+    app.get('/{*path}', (_req, res) => res.sendFile(resolve(clientDir, 'index.html'), { maxAge: 0 }));
+  }
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,4 @@
+import { Foundation1796205600000 } from './1796205600000-Foundation.js';
+
+/** In the order they run. A merged migration is never edited: add a new one. */
+export const migrations = [Foundation1796205600000];

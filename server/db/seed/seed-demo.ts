@@ -1,0 +1,30 @@
+import type { DataSource } from 'typeorm';
+import { Company } from '../../features/sites/company.entity.js';
+import { Site } from '../../features/sites/site.entity.js';
+import { User } from '../../features/users/user.entity.js';
+import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
+
+/**
+ * Loads the demo scenario. Idempotent: every record is found by its natural key first, so a
+ * second run adds nothing. It never overwrites what a user changed through the app.
+ */
+export async function seedDemo(dataSource: DataSource): Promise<void> {
+  await dataSource.transaction(async (manager) => {
+    let company = await manager.findOneBy(Company, { name: demoCompany.name });
+    company ??= await manager.save(Company, manager.create(Company, demoCompany));
+
+    const sitesByKey = new Map<string, Site>();
+    for (const { key, ...fields } of demoSites) {
+      let site = await manager.findOneBy(Site, { companyId: company.id, name: fields.name });
+      site ??= await manager.save(Site, manager.create(Site, { ...fields, companyId: company.id }));
+      sitesByKey.set(key, site);
+    }
+
+    for (const person of demoPeople) {
+      const existing = await manager.findOneBy(User, { email: person.email });
+      if (existing) continue;
+      const sites = person.sites.map((key) => sitesByKey.get(key)!);
+      await manager.save(User, manager.create(User, { email: person.email, name: person.name, role: person.role, sites }));
+    }
+  });
+}

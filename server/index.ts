@@ -1,0 +1,28 @@
+import { resolve } from 'node:path';
+import pg from 'pg';
+import { createApp } from './app.js';
+import { loadConfig } from './config/env.js';
+import { createDataSource } from './db/data-source.js';
+
+const config = loadConfig();
+const dataSource = await createDataSource(config.databaseUrl).initialize();
+const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
+const app = createApp({ config, dataSource, sessionPool, clientDir: resolve(import.meta.dirname, '../dist') });
+
+const server = app.listen(config.port, config.host, () => {
+  console.log(`Decant app listening on ${config.appUrl}`);
+});
+
+async function shutdown(signal: string): Promise<void> {
+  console.log(`Decant app: ${signal}, closing`);
+  server.close();
+  server.closeAllConnections();
+  await Promise.allSettled([sessionPool.end(), dataSource.destroy()]);
+  process.exit(0);
+}
+process.on('SIGINT', () => void shutdown('SIGINT'));
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('unhandledRejection', (reason) => {
+  console.error('Unhandled rejection:', reason);
+  process.exitCode = 1;
+});

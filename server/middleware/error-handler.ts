@@ -1,0 +1,28 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { AppError } from '../errors/app-error.js';
+import type { ErrorBody } from '../contracts/errors.js';
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new AppError(404, 'not_found', `No API route for ${req.method} ${req.originalUrl.split('?')[0]}`));
+};
+
+/** The single place where errors become responses: `{ error: { code, message, fields? } }`. */
+export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
+  let body: ErrorBody;
+  let status: number;
+  if (error instanceof AppError) {
+    status = error.status;
+    body = { error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
+  } else if (error?.type === 'entity.parse.failed') {
+    status = 400;
+    body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: { _: 'not JSON' } } };
+  } else if (error?.type === 'entity.too.large') {
+    status = 413;
+    body = { error: { code: 'too_large', message: 'The request body is too large' } };
+  } else {
+    status = 500;
+    body = { error: { code: 'internal', message: 'Something went wrong on the server' } };
+    console.error(`[${req.method} ${req.originalUrl}]`, error);
+  }
+  res.status(status).json(body);
+};

@@ -1,0 +1,54 @@
+import { resolve } from 'node:path';
+import { loadConfig } from '../config/env.js';
+import { demoPassword, demoPeople } from '../db/seed/demo-scenario.js';
+import { prepareDatabase } from '../db/prepare.js';
+import { localDatabase } from './local-database.js';
+import { run, startCommand, startTypeScript, stopChildren } from './processes.js';
+
+// `npm start` (and `npm run dev` with --dev): database, migrations, seed, then the test identity
+// provider, the SMTP fake and the app, each in its own process. Ctrl-C stops all of them.
+const projectDir = resolve(import.meta.dirname, '../..');
+const dev = process.argv.includes('--dev');
+const config = loadConfig();
+const vitePort = Number(process.env.VITE_PORT ?? 4283);
+const appUrl = dev ? `http://127.0.0.1:${vitePort}` : config.appUrl;
+
+const database = await localDatabase(projectDir, 'decant');
+await prepareDatabase(database.url, { seed: true });
+
+if (!dev) {
+  console.log('Building the client…');
+  run(resolve(projectDir, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { cwd: projectDir });
+}
+
+const shared = { DATABASE_URL: database.url, APP_URL: appUrl, NODE_ENV: dev ? 'development' : 'production' };
+if (config.oidc.isLocalFake && !process.env.OIDC_ISSUER) {
+  startTypeScript('idp/main.ts', { APP_URLS: appUrl, IDP_PORT: String(new URL(config.oidc.issuer).port) });
+}
+startTypeScript('server/dev/smtp-fake-main.ts', {});
+// Production mode needs a session secret; the local demo uses a fixed one unless one is set.
+startTypeScript('server/index.ts', { ...shared, SESSION_SECRET: config.sessionSecret }, dev ? ['--watch'] : []);
+if (dev) startCommand(resolve(projectDir, 'node_modules/.bin/vite'), ['--port', String(vitePort), '--strictPort'], {});
+
+setTimeout(() => {
+  const width = Math.max(...demoPeople.map((person) => person.email.length));
+  console.log(`
+  Decant is running at ${appUrl}
+
+  Demo accounts (password: ${demoPassword})
+${demoPeople.map((p) => `    ${p.email.padEnd(width)}  ${p.role.padEnd(13)}  ${p.duty}`).join('\n')}
+
+  Press Ctrl-C to stop.`);
+}, 2500);
+
+let stopping = false;
+async function stop(): Promise<void> {
+  if (stopping) return;
+  stopping = true;
+  console.log('\nStopping…');
+  await stopChildren();
+  if (database.cluster?.startedHere) database.cluster.stop();
+  process.exit(0);
+}
+process.on('SIGINT', () => void stop());
+process.on('SIGTERM', () => void stop());

@@ -1,0 +1,57 @@
+import type { ErrorBody } from '@contracts/errors.js';
+
+/** An error answered by the API, in its one shape. `fields` maps input names to messages. */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields: Record<string, string> = {},
+  ) {
+    super(message);
+  }
+}
+
+type UnauthenticatedHandler = () => void;
+let onUnauthenticated: UnauthenticatedHandler = () => {};
+
+/** The router registers where a 401 sends the user; every call shares it. */
+export function setUnauthenticatedHandler(handler: UnauthenticatedHandler): void {
+  onUnauthenticated = handler;
+}
+
+export type Query = Record<string, string | number | boolean | undefined | null>;
+
+function withQuery(path: string, query?: Query): string {
+  if (!query) return path;
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) {
+    if (value !== undefined && value !== null && value !== '') params.set(key, String(value));
+  }
+  const text = params.toString();
+  return text ? `${path}?${text}` : path;
+}
+
+export async function request<T>(method: string, path: string, options: { query?: Query; body?: unknown } = {}): Promise<T> {
+  const response = await fetch(withQuery(`/api${path}`, options.query), {
+    method,
+    credentials: 'same-origin',
+    headers: options.body === undefined ? { accept: 'application/json' } : { 'content-type': 'application/json', accept: 'application/json' },
+    body: options.body === undefined ? undefined : JSON.stringify(options.body),
+  });
+  if (response.status === 204) return undefined as T;
+  const payload = await response.json().catch(() => null);
+  if (!response.ok) {
+    const error = (payload as ErrorBody | null)?.error;
+    if (response.status === 401) onUnauthenticated();
+    throw new ApiError(response.status, error?.code ?? 'http_error', error?.message ?? response.statusText, error?.fields);
+  }
+  return payload as T;
+}
+
+export const api = {
+  get: <T>(path: string, query?: Query) => request<T>('GET', path, { query }),
+  post: <T>(path: string, body?: unknown) => request<T>('POST', path, { body }),
+  patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, { body }),
+  delete: <T>(path: string) => request<T>('DELETE', path),
+};

@@ -1,0 +1,19 @@
+import { mdiAccountKeyOutline, mdiHistory, mdiViewDashboardOutline } from '@mdi/js';
+import type { Action } from '@contracts/permissions.js';
+
+export interface Area {
+  title: string;
+  icon: string;
+  routeName: string;
+  action: Action;
+}
+
+/**
+ * The areas of the navigation, in product order. Lab, Oil log, Shipments, Periods,
+ * Follow-ups and Tools join this list as they are built.
+ */
+export const areas: Area[] = [
+  { title: 'Overview', icon: mdiViewDashboardOutline, routeName: 'overview', action: 'sites.read' },
+  { title: 'Trail', icon: mdiHistory, routeName: 'trail', action: 'trail.read' },
+  { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },
+];

@@ -1,0 +1,38 @@
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
+import { setUnauthenticatedHandler } from '@/api/client';
+import { installGuards } from './guards';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Reachable without signing in. */
+    public?: boolean;
+    /** The permission (see server/contracts/permissions.ts) the screen needs. */
+    action?: import('@contracts/permissions.js').Action;
+    title?: string;
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/sign-in', name: 'sign-in', component: () => import('@/views/SignInView.vue'), meta: { public: true, title: 'Sign in' } },
+  {
+    path: '/',
+    component: () => import('@/layouts/ShellLayout.vue'),
+    children: [
+      { path: '', name: 'home', redirect: { name: 'overview' } },
+      { path: 'overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { action: 'sites.read', title: 'Overview' } },
+      { path: 'trail', name: 'trail', component: () => import('@/views/TrailView.vue'), meta: { action: 'trail.read', title: 'Trail' } },
+      { path: 'setup/people', name: 'setup-people', component: () => import('@/views/PeopleView.vue'), meta: { action: 'users.read', title: 'People and access' } },
+      { path: 'waiting-for-access', name: 'no-role', component: () => import('@/views/NoRoleView.vue'), meta: { title: 'Waiting for access' } },
+      { path: ':pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue'), meta: { title: 'Not found' } },
+    ],
+  },
+];
+
+const router = createRouter({ history: createWebHistory(), routes });
+installGuards(router);
+setUnauthenticatedHandler(() => {
+  const current = router.currentRoute.value;
+  if (!current.meta.public) void router.push({ name: 'sign-in', query: { returnTo: current.fullPath } });
+});
+
+export default router;
