@@ -3,6 +3,7 @@ import { generateKeyPairSync } from 'node:crypto';
 import { createRequire } from 'node:module';
 import Provider, { type Configuration, type KoaContextWithOIDC } from 'oidc-provider';
 import { checkCredentials, findAccountById } from './accounts.js';
+import { memoryAdapterFactory } from './memory-adapter.js';
 import { loginPage, logoutPage, signedOutPage } from './pages.js';
 
 export interface IdentityProviderOptions {
@@ -21,6 +22,7 @@ export function createIdentityProvider(options: IdentityProviderOptions): expres
   const { privateKey } = generateKeyPairSync('rsa', { modulusLength: 2048 });
   const signingKey = { ...privateKey.export({ format: 'jwk' }), use: 'sig', alg: 'RS256', kid: 'decant-fake' };
   const configuration: Configuration = {
+    adapter: memoryAdapterFactory(),
     clients: [
       {
         client_id: options.client.clientId,
@@ -59,7 +61,7 @@ export function createIdentityProvider(options: IdentityProviderOptions): expres
         claims: async () => ({ sub: account.accountId, email: account.email, email_verified: true, name: account.name }),
       };
     },
-    ttl: { Session: 8 * 3600, Interaction: 3600, Grant: 8 * 3600 },
+    ttl: { Session: 8 * 3600, Interaction: 3600, Grant: 8 * 3600, AccessToken: 3600, IdToken: 3600, AuthorizationCode: 60 },
   };
   const provider = new Provider(options.issuer, configuration);
   provider.on('server_error', (_ctx, error) => console.error('identity provider error:', error));

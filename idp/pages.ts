@@ -39,9 +39,9 @@ export function loginPage(options: { uid: string; email?: string; error?: string
      ${error}
      <form method="post" action="/interaction/${escapeHtml(options.uid)}/login" autocomplete="off">
        <label for="email">E-mail</label>
-       <input id="email" name="email" type="email" required autofocus value="${escapeHtml(options.email ?? '')}">
+       <input id="email" name="email" type="email" autocomplete="username" required autofocus value="${escapeHtml(options.email ?? '')}">
        <label for="password">Password</label>
-       <input id="password" name="password" type="password" required>
+       <input id="password" name="password" type="password" autocomplete="current-password" required>
        <button type="submit">Sign in</button>
      </form>
      <footer>Accounts here are demo accounts. A real deployment signs in through the organisation's own provider.</footer>`,

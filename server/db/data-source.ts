@@ -12,7 +12,7 @@ export function createDataSource(url: string): DataSource {
     migrations,
     synchronize: false,
     migrationsRun: false,
-    logging: ['error'],
+    logging: false,
     extra: { max: 10, application_name: 'decant' },
   });
 }

@@ -1,0 +1,35 @@
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { localDatabase } from './local-database.js';
+import { run, runStatus } from './processes.js';
+
+// `npm test`: the same set-up as `npm start` against the test database, then type checks and
+// every Vitest project. Stops the database afterwards if it started it.
+const projectDir = resolve(import.meta.dirname, '../..');
+const bin = (name: string) => resolve(projectDir, 'node_modules/.bin', name);
+
+function ensureChromium(): void {
+  if (existsSync('/usr/bin/chromium')) return;
+  if (process.getuid?.() !== 0) throw new Error("Browser tests need Debian's chromium: sudo apt-get install -y chromium");
+  console.log("Installing Debian's chromium for the browser tests…");
+  run('apt-get', ['update', '-qq']);
+  run('apt-get', ['install', '-y', '-qq', 'chromium'], { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+}
+
+const database = await localDatabase(projectDir, 'decant_test');
+let exitCode = 1;
+try {
+  ensureChromium();
+  // Caches of tsx and the browser stay inside the project.
+  const tmp = resolve(projectDir, '.tmp');
+  run('mkdir', ['-p', tmp]);
+  const env = { ...process.env, DATABASE_URL: database.url, NODE_ENV: 'test', TMPDIR: tmp };
+  console.log('Type checking…');
+  run('npm', ['run', '--silent', 'typecheck'], { env });
+  console.log('Building the client for the browser tests…');
+  run(bin('vite'), ['build', '--logLevel', 'warn'], { env });
+  exitCode = runStatus(bin('vitest'), ['run', ...process.argv.slice(2)], { env, stdio: 'inherit' });
+} finally {
+  if (database.cluster?.startedHere) database.cluster.stop();
+}
+process.exit(exitCode);
