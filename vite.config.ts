@@ -17,6 +17,8 @@ export default defineConfig({
   },
   build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 600 },
   test: {
+    // Once per run, before any project: a clean test database, migrated and seeded.
+    globalSetup: ['tests/helpers/database-setup.ts'],
     projects: [
       {
         extends: true,
@@ -41,7 +43,6 @@ export default defineConfig({
           name: 'server',
           environment: 'node',
           include: ['tests/server/**/*.spec.ts', 'tests/idp/**/*.spec.ts'],
-          globalSetup: ['tests/helpers/database-setup.ts'],
           // One test database: files run one after another.
           fileParallelism: false,
           hookTimeout: 60_000,
@@ -53,7 +54,6 @@ export default defineConfig({
           name: 'e2e',
           environment: 'node',
           include: ['tests/e2e/**/*.spec.ts'],
-          globalSetup: ['tests/helpers/database-setup.ts'],
           fileParallelism: false,
           hookTimeout: 120_000,
           testTimeout: 120_000,

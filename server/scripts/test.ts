@@ -1,4 +1,4 @@
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { localDatabase } from './local-database.js';
 import { run, runStatus } from './processes.js';
@@ -16,6 +16,19 @@ function ensureChromium(): void {
   run('apt-get', ['install', '-y', '-qq', 'chromium'], { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
 }
 
+/** One plain closing line that any CI reads: "Tests: N passed, N failed, N skipped". */
+function printSummaryLine(resultsFile: string): void {
+  if (!existsSync(resultsFile)) return;
+  const results = JSON.parse(readFileSync(resultsFile, 'utf8')) as {
+    numPassedTests: number;
+    numFailedTests: number;
+    numPendingTests: number;
+    numTodoTests: number;
+  };
+  const skipped = results.numPendingTests + results.numTodoTests;
+  console.log(`\nTests: ${results.numPassedTests} passed, ${results.numFailedTests} failed, ${skipped} skipped`);
+}
+
 const database = await localDatabase(projectDir, 'decant_test');
 let exitCode = 1;
 try {
@@ -28,7 +41,13 @@ try {
   run('npm', ['run', '--silent', 'typecheck'], { env });
   console.log('Building the client for the browser tests…');
   run(bin('vite'), ['build', '--logLevel', 'warn'], { env });
-  exitCode = runStatus(bin('vitest'), ['run', ...process.argv.slice(2)], { env, stdio: 'inherit' });
+  const resultsFile = resolve(tmp, 'vitest-results.json');
+  exitCode = runStatus(
+    bin('vitest'),
+    ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`, ...process.argv.slice(2)],
+    { env, stdio: 'inherit' },
+  );
+  printSummaryLine(resultsFile);
 } finally {
   if (database.cluster?.startedHere) database.cluster.stop();
 }

@@ -32,7 +32,9 @@ const router = createRouter({ history: createWebHistory(), routes });
 installGuards(router);
 setUnauthenticatedHandler(() => {
   const current = router.currentRoute.value;
-  if (!current.meta.public) void router.push({ name: 'sign-in', query: { returnTo: current.fullPath } });
+  // During the first navigation the guard itself sends signed-out users to sign-in.
+  const settled = current.matched.length > 0;
+  if (settled && !current.meta.public) void router.push({ name: 'sign-in', query: { returnTo: current.fullPath } });
 });
 
 export default router;
