@@ -1,7 +1,11 @@
 import 'reflect-metadata';
+import pg from 'pg';
 import { DataSource } from 'typeorm';
 import { entities } from './entities.js';
 import { migrations } from './migrations/index.js';
+
+// A DATE is a calendar day of a site, not an instant: keep it as 'YYYY-MM-DD' text.
+pg.types.setTypeParser(pg.types.builtins.DATE, (value) => value);
 
 /** One DataSource factory for the app, the CLI and the tests; the schema changes only through migrations. */
 export function createDataSource(url: string): DataSource {

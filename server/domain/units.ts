@@ -28,7 +28,6 @@ export const units: Record<string, UnitDefinition> = {
   L: { dimension: 'volume', toBase: 1 },
 };
 
-export const unitNames = Object.keys(units);
 
 export function isKnownUnit(unit: string): boolean {
   return unit in units;

@@ -117,3 +117,11 @@ describe('units (NIST Handbook 44: 1 US gal = 3.785411784 L exactly)', () => {
     expect(convert(1, 'mg/L', 'gal/day')).toBeNull();
   });
 });
+
+describe('unit catalogue', () => {
+  it('offers in the contracts exactly the units it can convert', async () => {
+    const { unitNames } = await import('../../server/domain/unit-names.js');
+    const { units } = await import('../../server/domain/units.js');
+    expect([...unitNames].sort()).toEqual(Object.keys(units).sort());
+  });
+});

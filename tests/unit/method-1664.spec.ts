@@ -9,7 +9,7 @@ import {
   spikeRecovery,
   toMethodPrecision,
 } from '../../server/domain/method-1664.js';
-import { checkQcBatch } from '../../server/domain/lab-checks.js';
+import { checkQcBatch, type QcFacts } from '../../server/domain/lab-checks.js';
 
 describe('EPA Method 1664 Rev. B constants', () => {
   it('has MDL 1.4 mg/L and ML 5.0 mg/L (§1.6)', () => {
@@ -46,8 +46,8 @@ describe('spike recovery and RPD (Method 1664 Rev. B §9.3)', () => {
 });
 
 describe('QC windows at their edges (Method 1664 Rev. B, Table 1)', () => {
-  const blank = { oprRecoveryPct: null, msRecoveryPct: null, msdRecoveryPct: null, rpdPct: null, methodBlank: null, spike: null };
-  const codes = (qc: Partial<typeof blank> & { fraction: 'HEM' | 'SGT-HEM' }) => checkQcBatch({ ...blank, ...qc }).map((f) => f.code);
+  const blank: Omit<QcFacts, 'fraction'> = { oprRecoveryPct: null, msRecoveryPct: null, msdRecoveryPct: null, rpdPct: null, methodBlank: null, spike: null };
+  const codes = (qc: Partial<QcFacts> & { fraction: 'HEM' | 'SGT-HEM' }) => checkQcBatch({ ...blank, ...qc }).map((f) => f.code);
 
   it.each([
     ['HEM', 78, []], ['HEM', 114, []], ['HEM', 77.9, ['qc-opr']], ['HEM', 114.1, ['qc-opr']],

@@ -1,4 +1,5 @@
 import { Foundation1796205600000 } from './1796205600000-Foundation.js';
+import { SetupAndLab1796209200000 } from './1796209200000-SetupAndLab.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
-export const migrations = [Foundation1796205600000];
+export const migrations = [Foundation1796205600000, SetupAndLab1796209200000];

@@ -3,6 +3,8 @@ import { Company } from '../../features/sites/company.entity.js';
 import { Site } from '../../features/sites/site.entity.js';
 import { User } from '../../features/users/user.entity.js';
 import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
+import { seedLab } from './seed-lab.js';
+import { seedSetup } from './seed-setup.js';
 
 /**
  * Loads the demo scenario. Idempotent: every record is found by its natural key first, so a
@@ -26,5 +28,19 @@ export async function seedDemo(dataSource: DataSource): Promise<void> {
       const sites = person.sites.map((key) => sitesByKey.get(key)!);
       await manager.save(User, manager.create(User, { email: person.email, name: person.name, role: person.role, sites }));
     }
+
+    const north = sitesByKey.get('north')!;
+    const east = sitesByKey.get('east')!;
+    await seedSetup(manager, { north: north.id, east: east.id });
+    const coordinator = (await manager.findOneBy(User, { email: 'coordinator@decant.test' }))!;
+    await seedLab(
+      dataSource,
+      manager,
+      [
+        { key: 'north', id: north.id, name: north.name, timeZone: north.timeZone, outfall: 'OF-001' },
+        { key: 'east', id: east.id, name: east.name, timeZone: east.timeZone, outfall: 'OF-002' },
+      ],
+      { id: coordinator.id, email: coordinator.email, name: coordinator.name, role: 'coordinator', siteIds: [north.id, east.id] },
+    );
   });
 }

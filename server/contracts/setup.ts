@@ -1,0 +1,80 @@
+import { z } from 'zod';
+import { isoDate, timeZone, uuid } from './fields.js';
+import { GeneratorStatus, ManifestRule } from './sites.js';
+import { unitNames } from '../domain/unit-names.js';
+
+const unit = z.enum(unitNames as [string, ...string[]], 'Not a unit Decant knows');
+
+export const SiteFields = z.object({
+  name: z.string().trim().min(1, 'Enter a name').max(200),
+  address: z.string().trim().max(500).default(''),
+  timeZone,
+  retentionYears: z.number().int().min(3, 'Records must be kept at least 3 years (40 CFR 403.12(o), 122.41(j)(2))').max(100),
+  generatorStatus: GeneratorStatus,
+  manifestRule: ManifestRule.default('current'),
+  oilStorageCapacityGallons: z.number().min(0).max(10_000_000).nullable().default(null),
+});
+export const CreateSiteRequest = SiteFields;
+export const UpdateSiteRequest = SiteFields.partial();
+
+export const DischargePointFields = z.object({
+  code: z.string().trim().min(1, 'Enter a code').max(40).regex(/^[A-Za-z0-9._-]+$/, 'Letters, digits, dot, dash and underscore only'),
+  name: z.string().trim().min(1, 'Enter a name').max(200),
+  receiving: z.enum(['sewer', 'surface-water']),
+  active: z.boolean().default(true),
+});
+export const CreateDischargePointRequest = DischargePointFields;
+export const UpdateDischargePointRequest = DischargePointFields.partial();
+export type DischargePoint = z.infer<typeof DischargePointFields> & { id: string; siteId: string };
+
+export const ParameterFields = z.object({
+  siteId: uuid.nullable().default(null),
+  code: z.string().trim().min(1).max(60).regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes'),
+  name: z.string().trim().min(1, 'Enter a name').max(200),
+  fraction: z.enum(['HEM', 'SGT-HEM']).nullable().default(null),
+  defaultUnit: unit,
+  /** 40 CFR 403.8(f)(2)(viii)(B): 1.4 for BOD, TSS, fats, oil and grease; 1.2 for others; none for pH. */
+  sncReviewFactor: z.number().min(1).max(10).nullable().default(1.2),
+});
+export const CreateParameterRequest = ParameterFields;
+export const UpdateParameterRequest = ParameterFields.omit({ siteId: true }).partial();
+export type Parameter = z.infer<typeof ParameterFields> & { id: string };
+
+export const PermitFields = z.object({
+  siteId: uuid,
+  kind: z.enum(['pretreatment', 'npdes']),
+  number: z.string().trim().min(1, 'Enter the permit number').max(60),
+  issuingAuthority: z.string().trim().min(1, 'Enter the issuing authority').max(200),
+  authorityEmail: z.email('Enter a valid e-mail address').nullable().default(null),
+  effectiveFrom: isoDate,
+  effectiveTo: isoDate.nullable().default(null),
+  reportingFrequency: z.enum(['monthly', 'quarterly', 'semiannual']),
+  reportDueDays: z.number().int().min(0).max(365),
+  nonDetectPolicy: z.enum(['zero', 'mdl', 'ml', 'half-mdl']),
+  dailyMaxAppliesToEachGrab: z.boolean().default(false),
+  massLoadingFactor: z.union([z.literal(8.34), z.literal(8.3454)], 'Either 8.34 or 8.3454').default(8.34),
+  sncWindow: z.enum(['calendar-halves', 'rolling']).default('calendar-halves'),
+  lateReportDays: z.number().int().min(1).max(365).default(45),
+});
+const effectiveOrder = (permit: { effectiveFrom?: string; effectiveTo?: string | null }) =>
+  !permit.effectiveFrom || !permit.effectiveTo || permit.effectiveTo >= permit.effectiveFrom;
+export const CreatePermitRequest = PermitFields.refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
+export const UpdatePermitRequest = PermitFields.omit({ siteId: true })
+  .partial()
+  .refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
+export type Permit = z.infer<typeof PermitFields> & { id: string };
+
+export const limitStatistics = ['daily-maximum', 'monthly-average', 'instantaneous-minimum', 'instantaneous-maximum'] as const;
+export const LimitFields = z.object({
+  dischargePointId: uuid,
+  parameterId: uuid,
+  statistic: z.enum(limitStatistics),
+  value: z.number().finite().min(0),
+  unit,
+  frequencyCount: z.number().int().min(1).max(1000),
+  frequencyPer: z.enum(['day', 'week', 'month', 'quarter']),
+  sampleType: z.enum(['grab', 'composite']),
+});
+export const CreateLimitRequest = LimitFields;
+export const UpdateLimitRequest = LimitFields.partial();
+export type Limit = z.infer<typeof LimitFields> & { id: string; permitId: string };

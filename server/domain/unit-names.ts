@@ -1,0 +1,2 @@
+/** The units Decant knows, for contracts (which must not import conversion code). Kept in step with units.ts by a test. */
+export const unitNames = ['mg/L', 'µg/L', 'ug/L', 'g/L', 'ppm', 'SU', 'gal/day', 'MGD', 'm³/day', 'L/day', '°C', '°F', 'gal', 'L'];

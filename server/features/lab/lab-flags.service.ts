@@ -1,0 +1,136 @@
+import type { EntityManager } from 'typeorm';
+import type { Flag } from '../../contracts/flags.js';
+import { checkQcBatch, checkResult, checkSample, type LimitFacts, type SampleFacts } from '../../domain/lab-checks.js';
+
+interface ResultFactsRow {
+  id: string;
+  sample_id: string;
+  parameter_id: string;
+  parameter_name: string;
+  fraction: 'HEM' | 'SGT-HEM' | null;
+  method: string;
+  qualifier: '<' | null;
+  value_reported: string;
+  unit: string;
+  ml: string | null;
+  analysed_at: Date | null;
+  qc_batch_id: string | null;
+}
+
+/**
+ * Runs every lab check over one certificate and stores the flags on its QC batches, samples,
+ * results and the certificate itself. Called inside the transaction that wrote the data, and
+ * again when a limit at one of its points changes.
+ */
+export async function computeCertificateFlags(manager: EntityManager, certificateId: string, now = new Date()): Promise<void> {
+  const [certificate] = await manager.query(
+    `SELECT c.id, s.time_zone FROM lab_certificate c JOIN site s ON s.id = c.site_id WHERE c.id = $1`,
+    [certificateId],
+  );
+  const timeZone: string = certificate.time_zone;
+
+  const qcFlags = new Map<string, Flag[]>();
+  const batches = await manager.query('SELECT * FROM qc_batch WHERE certificate_id = $1', [certificateId]);
+  for (const batch of batches) {
+    const n = (value: string | null) => (value === null ? null : Number(value));
+    const hasSpike = batch.spike_true !== null && batch.ms_found !== null && batch.msd_found !== null;
+    const flags = checkQcBatch({
+      fraction: batch.fraction,
+      oprRecoveryPct: n(batch.opr_recovery_pct),
+      msRecoveryPct: n(batch.ms_recovery_pct),
+      msdRecoveryPct: n(batch.msd_recovery_pct),
+      rpdPct: n(batch.rpd_pct),
+      methodBlank: n(batch.method_blank),
+      spike: hasSpike
+        ? { spiked: Number(batch.spike_true), background: Number(batch.spike_background ?? 0), msFound: Number(batch.ms_found), msdFound: Number(batch.msd_found) }
+        : null,
+    });
+    qcFlags.set(batch.id, flags);
+    await manager.query('UPDATE qc_batch SET flags = $2 WHERE id = $1', [batch.id, JSON.stringify(flags)]);
+  }
+
+  const samples = await manager.query('SELECT * FROM lab_sample WHERE certificate_id = $1', [certificateId]);
+  const results: ResultFactsRow[] = await manager.query(
+    `SELECT r.*, p.name AS parameter_name, p.fraction FROM lab_result r
+       JOIN lab_sample s ON s.id = r.sample_id JOIN parameter p ON p.id = r.parameter_id
+      WHERE s.certificate_id = $1`,
+    [certificateId],
+  );
+  const all: Flag[] = [...qcFlags.values()].flat();
+  for (const sample of samples) {
+    const facts: SampleFacts = {
+      collectedAt: sample.collected_at,
+      sampleType: sample.sample_type,
+      preservationConfirmed: sample.preservation_confirmed,
+      temperatureOnReceiptC: sample.temperature_on_receipt_c === null ? null : Number(sample.temperature_on_receipt_c),
+    };
+    const sampleFlags = checkSample(facts, now);
+    await manager.query('UPDATE lab_sample SET flags = $2 WHERE id = $1', [sample.id, JSON.stringify(sampleFlags)]);
+    all.push(...sampleFlags);
+
+    const limitsByParameter = await limitsInForce(manager, sample.discharge_point_id, sample.collected_on);
+    for (const result of results.filter((row) => row.sample_id === sample.id)) {
+      const flags = [
+        ...checkResult(
+          {
+            parameterName: result.parameter_name,
+            fraction: result.fraction,
+            method: result.method,
+            qualifier: result.qualifier,
+            valueReported: result.value_reported,
+            unit: result.unit,
+            minimumLevel: result.ml === null ? null : Number(result.ml),
+            analysedAt: result.analysed_at,
+          },
+          facts,
+          limitsByParameter.get(result.parameter_id) ?? [],
+          timeZone,
+        ),
+        ...(result.qc_batch_id ? (qcFlags.get(result.qc_batch_id) ?? []) : []),
+      ];
+      await manager.query('UPDATE lab_result SET flags = $2, flag_codes = $3 WHERE id = $1', [
+        result.id,
+        JSON.stringify(flags),
+        [...new Set(flags.map((flag) => flag.code))],
+      ]);
+      all.push(...flags);
+    }
+  }
+  await manager.query('UPDATE lab_certificate SET flags = $2 WHERE id = $1', [certificateId, JSON.stringify(summarise(all))]);
+}
+
+/** One flag per code for the certificate, the most severe first, with how often it occurs. */
+function summarise(flags: Flag[]): Flag[] {
+  const byCode = new Map<string, { flag: Flag; count: number }>();
+  for (const flag of flags) {
+    const seen = byCode.get(flag.code);
+    if (seen) seen.count += 1;
+    else byCode.set(flag.code, { flag, count: 1 });
+  }
+  const order = { error: 0, warning: 1, info: 2 };
+  return [...byCode.values()]
+    .sort((a, b) => order[a.flag.severity] - order[b.flag.severity])
+    .map(({ flag, count }) => (count > 1 ? { ...flag, message: `${flag.message} (${count}×)` } : flag));
+}
+
+/** The limits of permits in force on the sample's local day at that point, by parameter. */
+async function limitsInForce(manager: EntityManager, pointId: string, day: string): Promise<Map<string, LimitFacts[]>> {
+  const rows = await manager.query(
+    `SELECT l.parameter_id, l.statistic, l.value, l.unit, l.sample_type FROM permit_limit l JOIN permit p ON p.id = l.permit_id
+      WHERE l.discharge_point_id = $1 AND p.effective_from <= $2 AND (p.effective_to IS NULL OR p.effective_to >= $2)`,
+    [pointId, day],
+  );
+  const map = new Map<string, LimitFacts[]>();
+  for (const row of rows) {
+    const list = map.get(row.parameter_id) ?? [];
+    list.push({ statistic: row.statistic, value: Number(row.value), unit: row.unit, sampleType: row.sample_type });
+    map.set(row.parameter_id, list);
+  }
+  return map;
+}
+
+/** After a limit changes, the flags of every certificate with a sample at that point. */
+export async function recheckResultsAtPoint(manager: EntityManager, pointId: string): Promise<void> {
+  const certificates = await manager.query('SELECT DISTINCT certificate_id FROM lab_sample WHERE discharge_point_id = $1', [pointId]);
+  for (const { certificate_id } of certificates) await computeCertificateFlags(manager, certificate_id);
+}
