@@ -5,6 +5,8 @@ import { MAX_UPLOAD_BYTES } from '../features/files/stored-files.js';
 
 const parser = multer({
   storage: multer.memoryStorage(),
+  // Keep the name as sent, so a name that tries to climb folders is seen and refused, not trimmed.
+  preservePath: true,
   limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10, fieldSize: 2 * 1024 * 1024 },
 });
 
@@ -21,7 +23,8 @@ export function singleUpload(): RequestHandler {
         }
         return next(new AppError(400, 'invalid_upload', error.message, { [error.field ?? 'file']: error.message }));
       }
-      next(error);
+      // Anything else here is the multipart parser refusing a malformed body.
+      next(new AppError(400, 'invalid_upload', 'The upload is malformed', { file: (error as Error).message }));
     });
   };
 }
