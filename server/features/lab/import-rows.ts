@@ -1,0 +1,78 @@
+import { parse } from 'csv-parse';
+import ExcelJS from 'exceljs';
+import { Readable } from 'node:stream';
+import { importColumns, type ImportColumn } from '../../contracts/lab-import.js';
+import { invalid } from '../../errors/app-error.js';
+
+export interface ImportRow {
+  /** The spreadsheet's own row number (the header is row 1). */
+  row: number;
+  cells: Partial<Record<ImportColumn, string>>;
+}
+
+/** "collected_at [YYYY-MM-DD HH:mm, site local time]" → "collected_at". */
+const headerKey = (header: string) => header.trim().split(/\s*\[/)[0]!.trim().toLowerCase();
+
+function cellText(value: unknown): string {
+  if (value === null || value === undefined) return '';
+  // exceljs reads a date cell as a Date whose UTC fields are the wall-clock time typed in the sheet.
+  if (value instanceof Date) {
+    const iso = value.toISOString();
+    return iso.endsWith('T00:00:00.000Z') ? iso.slice(0, 10) : `${iso.slice(0, 10)} ${iso.slice(11, 16)}`;
+  }
+  if (typeof value === 'object' && 'text' in (value as object)) return String((value as { text: unknown }).text);
+  if (typeof value === 'object' && 'result' in (value as object)) return cellText((value as { result: unknown }).result);
+  return String(value).trim();
+}
+
+function mapHeader(headers: string[]): Map<number, ImportColumn> {
+  const known = new Set<string>(importColumns.map((column) => column.key));
+  const map = new Map<number, ImportColumn>();
+  headers.forEach((header, index) => {
+    const key = headerKey(header);
+    if (known.has(key)) map.set(index, key as ImportColumn);
+  });
+  const missing = importColumns.map((c) => c.key).filter((key) => ![...map.values()].includes(key));
+  if (missing.length > 0) throw invalid({ file: `Missing columns: ${missing.join(', ')}` }, 'The header row does not match the template');
+  return map;
+}
+
+/** Rows of an XLSX file, read with exceljs's streaming reader (first worksheet only). */
+export async function* xlsxRows(buffer: Buffer): AsyncGenerator<ImportRow> {
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(buffer), { sharedStrings: 'cache', worksheets: 'emit', hyperlinks: 'ignore', styles: 'cache' });
+  let header: Map<number, ImportColumn> | null = null;
+  for await (const worksheet of reader) {
+    for await (const row of worksheet) {
+      const values = (row.values as unknown[]).slice(1).map(cellText);
+      if (!header) {
+        header = mapHeader(values);
+        continue;
+      }
+      if (values.every((value) => value === '')) continue;
+      yield { row: row.number, cells: Object.fromEntries([...header].map(([index, key]) => [key, values[index] ?? ''])) };
+    }
+    break;
+  }
+  if (!header) throw invalid({ file: 'The workbook has no header row' });
+}
+
+/** Rows of a CSV file (comma separated, UTF-8, optional BOM), streamed through csv-parse. */
+export async function* csvRows(buffer: Buffer): AsyncGenerator<ImportRow> {
+  const parser = Readable.from(buffer).pipe(parse({ bom: true, relax_column_count: true, skip_empty_lines: true, trim: true }));
+  let header: Map<number, ImportColumn> | null = null;
+  let rowNumber = 0;
+  try {
+    for await (const record of parser as AsyncIterable<string[]>) {
+      rowNumber += 1;
+      if (!header) {
+        header = mapHeader(record);
+        continue;
+      }
+      yield { row: rowNumber, cells: Object.fromEntries([...header].map(([index, key]) => [key, record[index] ?? ''])) };
+    }
+  } catch (error) {
+    if ((error as { code?: string }).code?.startsWith('CSV_')) throw invalid({ file: (error as Error).message }, 'The CSV file cannot be read');
+    throw error;
+  }
+  if (!header) throw invalid({ file: 'The file has no header row' });
+}

@@ -1,0 +1,104 @@
+import ExcelJS from 'exceljs';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { importColumns } from '../../server/contracts/lab-import.js';
+import { demoIds } from '../fixtures/lab.js';
+import { startTestApp, type TestApp } from '../helpers/test-app.js';
+
+const header = importColumns.map((column) => column.key).join(',');
+function csvRow(report: string, overrides: Partial<Record<string, string>> = {}): string {
+  const values: Record<string, string> = {
+    lab_name: 'Import Lab', lab_accreditation_number: 'IMP-1', report_number: report, received_on: '2026-04-03',
+    discharge_point_code: 'OF-001', collected_at: '2026-04-02 09:30', collected_by: 'Importer', sample_type: 'grab',
+    preservation_confirmed: 'yes', temperature_on_receipt: '4', chain_of_custody_number: 'C-1', parameter_code: 'oil-grease-hem',
+    method: '1664B', qualifier: '', value: '14.2', unit: 'mg/L', mdl: '1.4', ml: '5.0', analysed_at: '2026-04-04 10:00', ...overrides,
+  };
+  return importColumns.map((column) => values[column.key]).join(',');
+}
+const binary = (res: NodeJS.ReadableStream & { on: Function }, done: (error: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+};
+
+describe('lab results import', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  let coordinator: string;
+  const counts = async () => [await t.count('lab_certificate'), await t.count('lab_sample'), await t.count('lab_result')];
+  const post = (file: Buffer, name: string, commit: boolean) =>
+    request(t.app)
+      .post('/api/lab-certificates/import')
+      .set('cookie', coordinator)
+      .field('siteId', ids.north)
+      .field('commit', String(commit))
+      .attach('file', file, name);
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+    coordinator = await t.sessionFor('coordinator@decant.test');
+  });
+  afterAll(() => t.close());
+
+  it('dry-runs without writing, then commits every row of a clean file', async () => {
+    const file = Buffer.from([header, csvRow('IMP-A'), csvRow('IMP-A', { parameter_code: 'ph', method: 'SM 4500-H+ B', value: '7.2', unit: 'SU', mdl: '', ml: '' }), csvRow('IMP-B', { collected_at: '2026-04-09 09:30' })].join('\n'));
+    const before = await counts();
+    const dry = await post(file, 'results.csv', false).expect(200);
+    expect(dry.body).toMatchObject({ committed: false, rows: 3, certificates: 2, samples: 2, results: 3, errors: [] });
+    expect(await counts()).toEqual(before);
+    const done = await post(file, 'results.csv', true).expect(201);
+    expect(done.body.committed).toBe(true);
+    expect(await counts()).toEqual([before[0]! + 2, before[1]! + 2, before[2]! + 3]);
+  });
+
+  it('writes nothing when one row is bad, and names that row and column', async () => {
+    const file = Buffer.from([header, csvRow('IMP-C'), csvRow('IMP-C', { parameter_code: 'ph', value: 'seven', unit: 'SU' }), csvRow('IMP-D')].join('\n'));
+    const before = await counts();
+    const dry = await post(file, 'results.csv', false).expect(200);
+    expect(dry.body.errors).toEqual([{ row: 3, column: 'value', message: 'Not a number' }]);
+    const refused = await post(file, 'results.csv', true).expect(400);
+    expect(refused.body.report.errors[0]).toMatchObject({ row: 3, column: 'value' });
+    expect(await counts()).toEqual(before);
+  });
+
+  it('reports an unknown point code and a report number already recorded', async () => {
+    const file = Buffer.from([header, csvRow('IMP-A'), csvRow('IMP-E', { discharge_point_code: 'OF-999' })].join('\n'));
+    const dry = await post(file, 'results.csv', false).expect(200);
+    expect(dry.body.errors).toEqual([
+      { row: 2, column: 'report_number', message: 'This lab already has a certificate with this report number' },
+      { row: 3, column: 'discharge_point_code', message: 'No discharge point with this code at the site' },
+    ]);
+  });
+
+  for (const format of ['xlsx', 'csv'] as const) {
+    it(`downloads the ${format} template and imports it back as it is`, async () => {
+      const template = await request(t.app)
+        .get(`/api/lab-certificates/import/template?siteId=${ids.north}&format=${format}`)
+        .set('cookie', coordinator)
+        .buffer(true)
+        .parse(binary as never)
+        .expect(200);
+      expect(template.headers['content-disposition']).toContain(`.${format}`);
+      if (format === 'xlsx') {
+        const workbook = new ExcelJS.Workbook();
+        await workbook.xlsx.load(template.body);
+        expect(String(workbook.worksheets[0]!.getRow(1).getCell(6).value)).toContain('collected_at [YYYY-MM-DD HH:mm');
+      }
+      const before = await counts();
+      const done = await post(template.body, `template.${format}`, true).expect(201);
+      expect(done.body).toMatchObject({ committed: true, rows: 1, results: 1 });
+      expect(await counts()).toEqual([before[0]! + 1, before[1]! + 1, before[2]! + 1]);
+    });
+  }
+
+  it('refuses a file that is neither XLSX nor CSV', async () => {
+    const response = await post(Buffer.from('%PDF-1.4\n%%EOF'), 'results.pdf', false).expect(415);
+    expect(response.body.error.fields).toHaveProperty('file');
+  });
+
+  it('refuses a header that does not match the template', async () => {
+    const response = await post(Buffer.from('a,b,c\n1,2,3'), 'results.csv', false).expect(400);
+    expect(response.body.error.fields.file).toMatch(/Missing columns/);
+  });
+});
