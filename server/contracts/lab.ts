@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { Flag } from './flags.js';
 import { decimalText, isoDate, localDateTime, uuid } from './fields.js';
 import { PageQuery } from './paging.js';
-import { unitNames } from '../domain/unit-names.js';
+import { unitNames } from './unit-names.js';
 
 const optionalPercent = z.number().finite().min(0).max(1000).nullable().default(null);
 const optionalAmount = z.number().finite().min(0).nullable().default(null);

@@ -1,7 +1,9 @@
 import { z } from 'zod';
 import { isoDate, timeZone, uuid } from './fields.js';
 import { GeneratorStatus, ManifestRule } from './sites.js';
-import { unitNames } from '../domain/unit-names.js';
+import { unitNames } from './unit-names.js';
+
+export { unitNames };
 
 const unit = z.enum(unitNames as [string, ...string[]], 'Not a unit Decant knows');
 

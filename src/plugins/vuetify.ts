@@ -48,6 +48,7 @@ export default createVuetify({
     VTextField: { variant: 'outlined', density: 'comfortable', color: 'primary' },
     VSelect: { variant: 'outlined', density: 'comfortable', color: 'primary' },
     VAutocomplete: { variant: 'outlined', density: 'comfortable', color: 'primary' },
+    VCombobox: { variant: 'outlined', density: 'comfortable', color: 'primary' },
     VBtn: { rounded: 'lg' },
     VCard: { rounded: 'lg', elevation: 0, border: true },
     VDataTableServer: { density: 'compact', hover: true },

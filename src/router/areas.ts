@@ -1,4 +1,4 @@
-import { mdiAccountKeyOutline, mdiHistory, mdiViewDashboardOutline } from '@mdi/js';
+import { mdiAccountKeyOutline, mdiCogOutline, mdiFlaskOutline, mdiHistory, mdiViewDashboardOutline } from '@mdi/js';
 import type { Action } from '@contracts/permissions.js';
 
 export interface Area {
@@ -9,11 +9,13 @@ export interface Area {
 }
 
 /**
- * The areas of the navigation, in product order. Lab, Oil log, Shipments, Periods,
- * Follow-ups and Tools join this list as they are built.
+ * The areas of the navigation, in product order. Oil log, Shipments, Periods, Follow-ups
+ * and Tools join this list as they are built.
  */
 export const areas: Area[] = [
   { title: 'Overview', icon: mdiViewDashboardOutline, routeName: 'overview', action: 'sites.read' },
+  { title: 'Lab', icon: mdiFlaskOutline, routeName: 'lab', action: 'lab.read' },
   { title: 'Trail', icon: mdiHistory, routeName: 'trail', action: 'trail.read' },
+  { title: 'Set-up', icon: mdiCogOutline, routeName: 'setup', action: 'setup.manage' },
   { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },
 ];

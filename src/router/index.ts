@@ -20,6 +20,11 @@ export const routes: RouteRecordRaw[] = [
     children: [
       { path: '', name: 'home', redirect: { name: 'overview' } },
       { path: 'overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { action: 'sites.read', title: 'Overview' } },
+      { path: 'lab', name: 'lab', component: () => import('@/views/LabView.vue'), meta: { action: 'lab.read', title: 'Lab' } },
+      { path: 'lab/certificates/new', name: 'lab-certificate-new', component: () => import('@/views/CertificateNewView.vue'), meta: { action: 'lab.write', title: 'Add a certificate' } },
+      { path: 'lab/certificates/:id', name: 'lab-certificate', component: () => import('@/views/CertificateView.vue'), props: true, meta: { action: 'lab.read', title: 'Certificate' } },
+      { path: 'lab/import', name: 'lab-import', component: () => import('@/views/LabImportView.vue'), meta: { action: 'lab.write', title: 'Import lab results' } },
+      { path: 'setup', name: 'setup', component: () => import('@/views/SetupView.vue'), meta: { action: 'sites.read', title: 'Set-up' } },
       { path: 'trail', name: 'trail', component: () => import('@/views/TrailView.vue'), meta: { action: 'trail.read', title: 'Trail' } },
       { path: 'setup/people', name: 'setup-people', component: () => import('@/views/PeopleView.vue'), meta: { action: 'users.read', title: 'People and access' } },
       { path: 'waiting-for-access', name: 'no-role', component: () => import('@/views/NoRoleView.vue'), meta: { title: 'Waiting for access' } },

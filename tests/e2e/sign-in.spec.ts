@@ -6,9 +6,9 @@ import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 // What each role's navigation shows, from the permission table's areas.
 const expectedAreas: Record<string, string[]> = {
   administrator: ['Overview', 'Trail', 'People and access'],
-  coordinator: ['Overview', 'Trail'],
-  operator: ['Overview'],
-  auditor: ['Overview', 'Trail'],
+  coordinator: ['Overview', 'Lab', 'Trail', 'Set-up'],
+  operator: ['Overview', 'Lab'],
+  auditor: ['Overview', 'Lab', 'Trail'],
 };
 
 describe('signing in with a browser', () => {
@@ -26,6 +26,7 @@ describe('signing in with a browser', () => {
   for (const person of demoPeople) {
     it(`signs ${person.email} in through the provider's page, shows the ${person.role}'s areas, and signs out`, async () => {
       const { page } = browser;
+      await page.context().clearCookies();
       await page.goto(`${stack.appUrl}/overview`);
       await page.waitForURL(/\/sign-in/);
       await page.getByText(person.email, { exact: true }).click();
@@ -52,6 +53,7 @@ describe('signing in with a browser', () => {
 
   it('keeps a wrong password on the login page with a message', async () => {
     const { page } = browser;
+    await page.context().clearCookies();
     await page.goto(`${stack.appUrl}/sign-in`);
     await page.getByText('coordinator@decant.test', { exact: true }).click();
     await page.waitForURL((url) => url.origin === stack.idpUrl);
@@ -67,6 +69,7 @@ describe('signing in with a browser', () => {
 
   it('lets the administrator give a person a role from the people screen', async () => {
     const { page } = browser;
+    await page.context().clearCookies();
     await page.goto(`${stack.appUrl}/sign-in`);
     await page.getByText('admin@decant.test', { exact: true }).click();
     await page.fill('#password', demoPassword);

@@ -120,7 +120,7 @@ describe('units (NIST Handbook 44: 1 US gal = 3.785411784 L exactly)', () => {
 
 describe('unit catalogue', () => {
   it('offers in the contracts exactly the units it can convert', async () => {
-    const { unitNames } = await import('../../server/domain/unit-names.js');
+    const { unitNames } = await import('../../server/contracts/unit-names.js');
     const { units } = await import('../../server/domain/units.js');
     expect([...unitNames].sort()).toEqual(Object.keys(units).sort());
   });

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { CreateLabCertificateRequest } from '../../contracts/lab.js';
 import type { ImportColumn, ImportRowError } from '../../contracts/lab-import.js';
 import { decimalText, isoDate } from '../../contracts/fields.js';
-import { unitNames } from '../../domain/unit-names.js';
+import { unitNames } from '../../contracts/unit-names.js';
 import type { ImportRow } from './import-rows.js';
 
 const blankToNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : value.trim());
