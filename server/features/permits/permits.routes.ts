@@ -63,7 +63,15 @@ export function permitsRoutes(dataSource: DataSource): Router {
 
   router.delete('/:id', requirePermission('setup.manage'), validate({ params: IdParams }), async (_req, res) => {
     await visiblePermit(res, res.locals.params.id);
+    const points: Array<{ discharge_point_id: string }> = await dataSource.query(
+      'SELECT DISTINCT discharge_point_id FROM permit_limit WHERE permit_id = $1',
+      [res.locals.params.id],
+    );
     await deleteTraced(dataSource, currentUser(res), permitTarget, res.locals.params.id);
+    // Its limits went with it: the flags they raised must go too.
+    await dataSource.transaction(async (manager) => {
+      for (const point of points) await recheckResultsAtPoint(manager, point.discharge_point_id);
+    });
     res.status(204).end();
   });
 

@@ -8,7 +8,7 @@ import { uniquely } from '../../db/rows.js';
 import { notFound } from '../../errors/app-error.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { validate } from '../../middleware/validate.js';
-import { createTraced, updateTraced } from '../trail/traced-writes.js';
+import { createTraced, deleteTraced, updateTraced } from '../trail/traced-writes.js';
 import { siteTarget } from './site.views.js';
 import { findSites } from './sites.repository.js';
 
@@ -55,6 +55,16 @@ export function sitesRoutes(dataSource: DataSource): Router {
     assertSiteVisible(currentUser(res), id, 'Site');
     await updateTraced(dataSource, currentUser(res), siteTarget, id, res.locals.body);
     res.json((await findSites(dataSource, [id]))[0]);
+  });
+
+  // Only a site with no records left: every table that refers to a site refuses the delete.
+  router.delete('/:id', requirePermission('setup.manage'), validate({ params: IdParams }), async (_req, res) => {
+    const { id } = res.locals.params as { id: string };
+    assertSiteVisible(currentUser(res), id, 'Site');
+    await deleteTraced(dataSource, currentUser(res), siteTarget, id, async (manager) => {
+      await manager.query('DELETE FROM user_site WHERE site_id = $1', [id]);
+    });
+    res.status(204).end();
   });
 
   return router;
