@@ -23,3 +23,14 @@ export const decimalText = z
   .refine((text) => /^-?(\d+\.?\d*|\.\d+)$/.test(text), 'Not a number');
 
 export const uuid = z.uuid('Not a valid id');
+
+/**
+ * The schema of a partial update: every field optional and no defaults. Zod applies a field's
+ * default even inside `.partial()`, which would silently reset fields a PATCH did not name.
+ */
+export function updateOf<T extends z.ZodRawShape>(schema: z.ZodObject<T>): ReturnType<z.ZodObject<T>['partial']> {
+  const shape = Object.fromEntries(
+    Object.entries(schema.shape).map(([key, field]) => [key, field instanceof z.ZodDefault ? field.unwrap() : field]),
+  );
+  return z.object(shape).partial() as unknown as ReturnType<z.ZodObject<T>['partial']>;
+}

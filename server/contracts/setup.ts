@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { isoDate, timeZone, uuid } from './fields.js';
+import { isoDate, timeZone, updateOf, uuid } from './fields.js';
 import { GeneratorStatus, ManifestRule } from './sites.js';
 import { unitNames } from './unit-names.js';
 
@@ -17,7 +17,7 @@ export const SiteFields = z.object({
   oilStorageCapacityGallons: z.number().min(0).max(10_000_000).nullable().default(null),
 });
 export const CreateSiteRequest = SiteFields;
-export const UpdateSiteRequest = SiteFields.partial();
+export const UpdateSiteRequest = updateOf(SiteFields);
 
 export const DischargePointFields = z.object({
   code: z.string().trim().min(1, 'Enter a code').max(40).regex(/^[A-Za-z0-9._-]+$/, 'Letters, digits, dot, dash and underscore only'),
@@ -26,7 +26,7 @@ export const DischargePointFields = z.object({
   active: z.boolean().default(true),
 });
 export const CreateDischargePointRequest = DischargePointFields;
-export const UpdateDischargePointRequest = DischargePointFields.partial();
+export const UpdateDischargePointRequest = updateOf(DischargePointFields);
 export type DischargePoint = z.infer<typeof DischargePointFields> & { id: string; siteId: string };
 
 export const ParameterFields = z.object({
@@ -39,7 +39,7 @@ export const ParameterFields = z.object({
   sncReviewFactor: z.number().min(1).max(10).nullable().default(1.2),
 });
 export const CreateParameterRequest = ParameterFields;
-export const UpdateParameterRequest = ParameterFields.omit({ siteId: true }).partial();
+export const UpdateParameterRequest = updateOf(ParameterFields.omit({ siteId: true }));
 export type Parameter = z.infer<typeof ParameterFields> & { id: string };
 
 export const PermitFields = z.object({
@@ -61,8 +61,7 @@ export const PermitFields = z.object({
 const effectiveOrder = (permit: { effectiveFrom?: string; effectiveTo?: string | null }) =>
   !permit.effectiveFrom || !permit.effectiveTo || permit.effectiveTo >= permit.effectiveFrom;
 export const CreatePermitRequest = PermitFields.refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
-export const UpdatePermitRequest = PermitFields.omit({ siteId: true })
-  .partial()
+export const UpdatePermitRequest = updateOf(PermitFields.omit({ siteId: true }))
   .refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
 export type Permit = z.infer<typeof PermitFields> & { id: string };
 
@@ -78,5 +77,5 @@ export const LimitFields = z.object({
   sampleType: z.enum(['grab', 'composite']),
 });
 export const CreateLimitRequest = LimitFields;
-export const UpdateLimitRequest = LimitFields.partial();
+export const UpdateLimitRequest = updateOf(LimitFields);
 export type Limit = z.infer<typeof LimitFields> & { id: string; permitId: string };

@@ -37,8 +37,12 @@ export type UpdateUserRequest = z.infer<typeof UpdateUserRequest>;
 
 export const userSortKeys = ['email', 'name', 'role', 'lastSignInAt', 'createdAt'] as const;
 
+export const UnitSystem = z.enum(['us', 'metric']);
+export type UnitSystem = z.infer<typeof UnitSystem>;
+export const UpdatePreferencesRequest = z.object({ unitSystem: UnitSystem });
+
 export interface Me {
-  user: { id: string; email: string; name: string; role: Role | null };
+  user: { id: string; email: string; name: string; role: Role | null; unitSystem: UnitSystem };
   sites: SiteSummary[];
   permissions: Action[];
 }

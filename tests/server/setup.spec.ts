@@ -45,6 +45,20 @@ describe('set-up records', () => {
     expect(response.body.error.fields).toHaveProperty('code');
   });
 
+  it('changes only the fields a PATCH names (no defaults sneak back in)', async () => {
+    const point = await request(t.app)
+      .post(`/api/sites/${ids.east}/discharge-points`)
+      .set('cookie', coordinator)
+      .send({ code: 'IS-299', name: 'Spare tap', receiving: 'sewer', active: false })
+      .expect(201);
+    const renamed = await request(t.app)
+      .patch(`/api/sites/${ids.east}/discharge-points/${point.body.id}`)
+      .set('cookie', coordinator)
+      .send({ name: 'Spare sampling tap' })
+      .expect(200);
+    expect(renamed.body).toMatchObject({ name: 'Spare sampling tap', active: false });
+  });
+
   it("lets a site add its own parameter to the catalogue, and keeps the shared catalogue unchangeable", async () => {
     const created = await request(t.app)
       .post('/api/parameters')

@@ -4,6 +4,7 @@ import { Site } from '../../features/sites/site.entity.js';
 import { User } from '../../features/users/user.entity.js';
 import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
 import { seedLab } from './seed-lab.js';
+import { seedOil } from './seed-oil.js';
 import { seedSetup } from './seed-setup.js';
 
 /**
@@ -42,5 +43,10 @@ export async function seedDemo(dataSource: DataSource): Promise<void> {
       ],
       { id: coordinator.id, email: coordinator.email, name: coordinator.name, role: 'coordinator', siteIds: [north.id, east.id] },
     );
+    const operator = (await manager.findOneBy(User, { email: 'operator@decant.test' }))!;
+    await seedOil(manager, [
+      { key: 'north', id: north.id, timeZone: north.timeZone },
+      { key: 'east', id: east.id, timeZone: east.timeZone },
+    ], operator.id);
   });
 }

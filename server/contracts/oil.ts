@@ -1,0 +1,120 @@
+import { z } from 'zod';
+import type { Flag } from './flags.js';
+import { isoDate, updateOf, uuid } from './fields.js';
+import { PageQuery } from './paging.js';
+
+export const equipmentKinds = ['belt-skimmer', 'drum-skimmer', 'disc-skimmer', 'tube-skimmer', 'mop-skimmer', 'oil-water-separator', 'sump'] as const;
+
+export const EquipmentFields = z.object({
+  siteId: uuid,
+  name: z.string().trim().min(1, 'Enter a name').max(120),
+  kind: z.enum(equipmentKinds),
+  serves: z.string().trim().max(200).default(''),
+  ratedCapacity: z.number().finite().positive('Above zero').max(100_000),
+  ratedUnit: z.enum(['gal/h', 'L/h']),
+  mediumMaterial: z.string().trim().max(80).nullable().default(null),
+  upkeepIntervalDays: z.number().int().min(1).max(366),
+  /** Lube oils are about 0.85–0.90; 0.88 is Decant's default. */
+  specificGravity: z.number().gt(0.5).lt(1.2).default(0.88),
+  active: z.boolean().default(true),
+});
+export const CreateEquipmentRequest = EquipmentFields;
+export const UpdateEquipmentRequest = updateOf(EquipmentFields.omit({ siteId: true }));
+
+export interface EquipmentView extends z.infer<typeof EquipmentFields> {
+  id: string;
+  ratedLitresPerHour: number;
+  lastCheckedOn: string | null;
+  nextCheckDueOn: string | null;
+  upkeepOverdue: boolean;
+  averageLitresPerHour: number | null;
+  likelyUndersized: boolean;
+  collectedLitresLast30Days: number;
+}
+
+export const observations = ['free-oil', 'sheen', 'emulsified-oil', 'debris'] as const;
+
+export const OilLogFields = z.object({
+  equipmentId: uuid,
+  collectedOn: isoDate,
+  volume: z.number().finite().min(0, 'Cannot be negative').max(1_000_000, 'Not a plausible volume'),
+  unit: z.enum(['gal', 'L']),
+  hoursRun: z.number().finite().min(0).max(24, 'A day has 24 hours').nullable().default(null),
+  waterTemperatureC: z.number().finite().min(-5).max(100).nullable().default(null),
+  observations: z.array(z.enum(observations)).max(4).default([]),
+  note: z.string().trim().max(1000).default(''),
+});
+export const CreateOilLogRequest = OilLogFields;
+export const UpdateOilLogRequest = updateOf(OilLogFields.omit({ equipmentId: true })).extend({
+  /** Required from a coordinator correcting someone's entry after 24 hours. */
+  reason: z.string().trim().min(3).max(500).optional(),
+});
+
+export interface OilLogEntryView {
+  id: string;
+  equipmentId: string;
+  equipmentName: string;
+  siteId: string;
+  collectedOn: string;
+  volumeLitres: number;
+  enteredVolume: number;
+  enteredUnit: 'gal' | 'L';
+  hoursRun: number | null;
+  waterTemperatureC: number | null;
+  observations: string[];
+  note: string;
+  flags: Flag[];
+  enteredBy: string;
+  enteredByName: string;
+  createdAt: string;
+}
+
+export const OilLogQuery = PageQuery.extend({
+  siteId: uuid.optional(),
+  equipmentId: uuid.optional(),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+});
+
+export const OilTotalsQuery = z.object({
+  siteId: uuid,
+  equipmentId: uuid.optional(),
+  by: z.enum(['day', 'week', 'month']).default('month'),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+});
+
+export const upkeepItems = [
+  { key: 'wipers-even', label: 'Wipers or scrapers touch the medium evenly' },
+  { key: 'medium-tracking', label: 'Medium runs centred and true on its pulley or drum' },
+  { key: 'trough-clear', label: 'Trough and wipers free of debris' },
+  { key: 'medium-immersed', label: "Medium's lower end immersed in the liquid" },
+  { key: 'drive-quiet', label: 'Drive runs without noise or heat' },
+  { key: 'no-leaks', label: 'No leaks at the collection container' },
+] as const;
+export type UpkeepItemKey = (typeof upkeepItems)[number]['key'];
+
+export const UpkeepCheckRequest = z.object({
+  equipmentId: uuid,
+  checkedOn: isoDate,
+  items: z
+    .array(
+      z.object({
+        key: z.enum(upkeepItems.map((item) => item.key) as [UpkeepItemKey, ...UpkeepItemKey[]]),
+        outcome: z.enum(['pass', 'fail', 'not-applicable']),
+        note: z.string().trim().max(500).default(''),
+        photoFileId: uuid.nullable().default(null),
+      }),
+    )
+    .length(upkeepItems.length, `All ${upkeepItems.length} items`)
+    .refine((items) => new Set(items.map((item) => item.key)).size === items.length, 'Each item once'),
+  immersionValue: z.number().finite().min(0).max(500).nullable().default(null),
+  immersionUnit: z.enum(['in', 'cm']).nullable().default(null),
+});
+
+export interface UpkeepCheckView extends z.infer<typeof UpkeepCheckRequest> {
+  id: string;
+  siteId: string;
+  failedCount: number;
+  checkedByName: string;
+}

@@ -1,0 +1,51 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { OilLogEntryView } from '../../contracts/oil.js';
+import type { Page } from '../../contracts/paging.js';
+
+type Db = DataSource | EntityManager;
+const n = (value: string | null) => (value === null ? null : Number(value));
+
+const select = `SELECT o.*, e.name AS equipment_name, u.name AS entered_by_name
+  FROM oil_log_entry o JOIN equipment e ON e.id = o.equipment_id JOIN app_user u ON u.id = o.entered_by`;
+
+function view(row: Record<string, any>): OilLogEntryView {
+  return {
+    id: row.id, equipmentId: row.equipment_id, equipmentName: row.equipment_name, siteId: row.site_id, collectedOn: row.collected_on,
+    volumeLitres: Number(row.volume_litres), enteredVolume: Number(row.entered_volume), enteredUnit: row.entered_unit,
+    hoursRun: n(row.hours_run), waterTemperatureC: n(row.water_temperature_c), observations: row.observations, note: row.note,
+    flags: row.flags, enteredBy: row.entered_by, enteredByName: row.entered_by_name, createdAt: row.created_at.toISOString(),
+  };
+}
+
+export async function findOilLogEntry(db: Db, id: string): Promise<OilLogEntryView | null> {
+  const [row] = await db.query(`${select} WHERE o.id = $1`, [id]);
+  return row ? view(row) : null;
+}
+
+const sorts: Record<string, string> = { collectedOn: 'o.collected_on', volumeLitres: 'o.volume_litres', equipmentName: 'e.name' };
+
+export async function pageOilLog(
+  db: Db,
+  siteIds: string[],
+  query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; equipmentId?: string; from?: string; to?: string },
+): Promise<Page<OilLogEntryView>> {
+  const where = `o.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR o.equipment_id = $2)
+    AND ($3::date IS NULL OR o.collected_on >= $3) AND ($4::date IS NULL OR o.collected_on <= $4)`;
+  const params = [siteIds, query.equipmentId ?? null, query.from ?? null, query.to ?? null];
+  const order = `${sorts[query.sortBy ?? ''] ?? 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`;
+  const rows = await db.query(`${select} WHERE ${where} ORDER BY ${order} LIMIT $5 OFFSET $6`, [...params, query.pageSize, (query.page - 1) * query.pageSize]);
+  const [{ count }] = await db.query(`SELECT count(*)::int AS count FROM oil_log_entry o WHERE ${where}`, params);
+  return { items: rows.map(view), total: count, page: query.page, pageSize: query.pageSize };
+}
+
+/** Litres collected per day, ISO week or month (the site's local dates). */
+export async function oilTotals(db: Db, siteId: string, by: 'day' | 'week' | 'month', filter: { equipmentId?: string; from?: string; to?: string }) {
+  const rows = await db.query(
+    `SELECT to_char(date_trunc($2, collected_on::timestamp), 'YYYY-MM-DD') AS period, sum(volume_litres) AS litres, count(*)::int AS entries
+       FROM oil_log_entry WHERE site_id = $1 AND ($3::uuid IS NULL OR equipment_id = $3)
+        AND ($4::date IS NULL OR collected_on >= $4) AND ($5::date IS NULL OR collected_on <= $5)
+      GROUP BY 1 ORDER BY 1`,
+    [siteId, by, filter.equipmentId ?? null, filter.from ?? null, filter.to ?? null],
+  );
+  return rows.map((row: { period: string; litres: string; entries: number }) => ({ period: row.period, litres: Number(row.litres), entries: row.entries }));
+}

@@ -1,0 +1,65 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { Page } from '../../contracts/paging.js';
+import type { ShipmentView } from '../../contracts/shipments.js';
+import { daysLeft, manifestDeadlines, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
+
+type Db = DataSource | EntityManager;
+const n = (value: string | null) => (value === null ? null : Number(value));
+
+/** The first 262.42 step of each generator status and rule, from the domain rule, for SQL filters. */
+const firstSteps = (['large', 'small'] as const).flatMap((status) =>
+  (['current', 'before-2025'] as const).map((rule) => ({ status, rule, days: manifestDeadlines(status, rule, '2000-01-01')[0]!.days })),
+);
+/** SQL for those days at the shipment's site; `at` is the position of the three array parameters. */
+const firstStepSql = (at: number) => `(SELECT days FROM unnest($${at}::text[], $${at + 1}::text[], $${at + 2}::int[]) AS f(status, rule, days)
+  WHERE f.status = st.generator_status AND f.rule = st.manifest_rule)`;
+const firstStepParams = () => [firstSteps.map((f) => f.status), firstSteps.map((f) => f.rule), firstSteps.map((f) => f.days)];
+
+const statusSql = (at: number) => `CASE WHEN s.signed_copy_received_on IS NOT NULL THEN 'complete'
+  WHEN ${firstStepSql(at)} IS NOT NULL AND (now() AT TIME ZONE st.time_zone)::date > s.shipped_on + ${firstStepSql(at)} THEN 'overdue'
+  ELSE 'awaiting-signed-copy' END`;
+
+const select = (at: number) => `SELECT s.*, st.generator_status, st.manifest_rule, (now() AT TIME ZONE st.time_zone)::date::text AS today, ${statusSql(at)} AS status,
+    coalesce((SELECT json_agg(json_build_object('id', f.id, 'fileName', f.file_name, 'mediaType', f.media_type, 'sizeBytes', f.size_bytes, 'sha256', f.sha256))
+                FROM shipment_file sf JOIN stored_file f ON f.id = sf.file_id WHERE sf.shipment_id = s.id), '[]') AS files
+  FROM shipment s JOIN site st ON st.id = s.site_id`;
+
+function view(row: Record<string, any>): ShipmentView {
+  const deadlines = row.signed_copy_received_on
+    ? []
+    : manifestDeadlines(row.generator_status as GeneratorStatus, row.manifest_rule as ManifestRule, row.shipped_on).map((d) => ({
+        ...d, daysLeft: daysLeft(d.dueOn, row.today),
+      }));
+  return {
+    id: row.id, siteId: row.site_id, shippedOn: row.shipped_on, documentKind: row.document_kind, documentNumber: row.document_number,
+    transporterName: row.transporter_name, transporterEpaId: row.transporter_epa_id, receiverName: row.receiver_name,
+    receiverEpaId: row.receiver_epa_id, wasteDescription: row.waste_description, quantity: Number(row.quantity), quantityUnit: row.quantity_unit,
+    quantityLitres: Number(row.quantity_litres), totalHalogensPpm: n(row.total_halogens_ppm), burnedAsFuel: row.burned_as_fuel,
+    arsenicPpm: n(row.arsenic_ppm), cadmiumPpm: n(row.cadmium_ppm), chromiumPpm: n(row.chromium_ppm), leadPpm: n(row.lead_ppm),
+    flashPointF: n(row.flash_point_f), signedCopyReceivedOn: row.signed_copy_received_on, status: row.status, deadlines, flags: row.flags, files: row.files,
+  };
+}
+
+export async function findShipment(db: Db, id: string): Promise<ShipmentView | null> {
+  const [row] = await db.query(`${select(2)} WHERE s.id = $1`, [id, ...firstStepParams()]);
+  return row ? view(row) : null;
+}
+
+const sorts: Record<string, string> = { shippedOn: 's.shipped_on', documentNumber: 's.document_number', quantity: 's.quantity_litres' };
+
+export async function pageShipments(
+  db: Db,
+  siteIds: string[],
+  query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; status?: string; search?: string },
+): Promise<Page<ShipmentView>> {
+  const where = `s.site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR ${statusSql(4)} = $2)
+    AND ($3::text IS NULL OR s.document_number ILIKE $3 OR s.transporter_name ILIKE $3 OR s.receiver_name ILIKE $3)`;
+  const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
+  const params = [siteIds, query.status ?? null, search, ...firstStepParams()];
+  const order = `${sorts[query.sortBy ?? ''] ?? 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`;
+  const rows = await db.query(`${select(4)} WHERE ${where} ORDER BY ${order} LIMIT $7 OFFSET $8`, [
+    ...params, query.pageSize, (query.page - 1) * query.pageSize,
+  ]);
+  const [{ count }] = await db.query(`SELECT count(*)::int AS count FROM shipment s JOIN site st ON st.id = s.site_id WHERE ${where}`, params);
+  return { items: rows.map(view), total: count, page: query.page, pageSize: query.pageSize };
+}

@@ -1,0 +1,164 @@
+import { DateTime } from 'luxon';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { upkeepItems } from '../../server/contracts/oil.js';
+import { demoIds } from '../fixtures/lab.js';
+import { startTestApp, type TestApp } from '../helpers/test-app.js';
+
+const today = () => DateTime.now().setZone('America/Chicago').toISODate()!;
+const daysAgo = (days: number) => DateTime.now().setZone('America/Chicago').minus({ days }).toISODate()!;
+
+describe('oil log, upkeep and shipments', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  let operator: string;
+  let coordinator: string;
+  let belt: { id: string; ratedLitresPerHour: number };
+  const shipment = (overrides: Record<string, unknown> = {}) => ({
+    siteId: ids.north, shippedOn: daysAgo(61), documentKind: 'hazardous-waste-manifest', documentNumber: `${100000000 + Math.floor(Math.random() * 899999999)}ABC`,
+    transporterName: 'Test Hauler', transporterEpaId: 'ILR000000001', receiverName: 'Test Recycler', receiverEpaId: 'ILD000000002',
+    wasteDescription: 'Used oil', quantity: 220, quantityUnit: 'gal', ...overrides,
+  });
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+    operator = await t.sessionFor('operator@decant.test');
+    coordinator = await t.sessionFor('coordinator@decant.test');
+    const list = await request(t.app).get(`/api/equipment?siteId=${ids.north}`).set('cookie', operator).expect(200);
+    belt = list.body.items.find((e: { kind: string }) => e.kind === 'belt-skimmer');
+  });
+  afterAll(() => t.close());
+
+  describe('oil log', () => {
+    it('stores litres whatever unit was entered, and lets the operator correct their own entry', async () => {
+      const created = await request(t.app).post('/api/oil-log').set('cookie', operator)
+        .send({ equipmentId: belt.id, collectedOn: today(), volume: 2, unit: 'gal', hoursRun: 8 }).expect(201);
+      expect(created.body.volumeLitres).toBeCloseTo(7.570823568, 6);
+      const fixed = await request(t.app).patch(`/api/oil-log/${created.body.id}`).set('cookie', operator).send({ volume: 3 }).expect(200);
+      expect(fixed.body.volumeLitres).toBeCloseTo(11.356235352, 6);
+      const trail = await t.dataSource.query(`SELECT action FROM trail_entry WHERE entity_id = $1 ORDER BY id`, [created.body.id]);
+      expect(trail.map((e: { action: string }) => e.action)).toEqual(['create', 'update']);
+    });
+
+    it('refuses a future date, a volume no equipment could collect in a day, and unknown equipment, writing nothing', async () => {
+      const before = await t.count('oil_log_entry');
+      const future = DateTime.now().setZone('America/Chicago').plus({ days: 2 }).toISODate();
+      const cases: Array<[Record<string, unknown>, string]> = [
+        [{ equipmentId: belt.id, collectedOn: future, volume: 1, unit: 'gal' }, 'collectedOn'],
+        [{ equipmentId: belt.id, collectedOn: today(), volume: belt.ratedLitresPerHour * 24 + 1, unit: 'L' }, 'volume'],
+        [{ equipmentId: belt.id, collectedOn: today(), volume: -1, unit: 'L' }, 'volume'],
+        [{ equipmentId: '00000000-0000-4000-8000-000000000000', collectedOn: today(), volume: 1, unit: 'L' }, 'equipmentId'],
+        [{ equipmentId: belt.id, collectedOn: today(), volume: 1, unit: 'L', hoursRun: 25 }, 'hoursRun'],
+      ];
+      for (const [body, field] of cases) {
+        const response = await request(t.app).post('/api/oil-log').set('cookie', operator).send(body).expect(400);
+        expect(response.body.error.fields).toHaveProperty(field);
+      }
+      expect(await t.count('oil_log_entry')).toBe(before);
+    });
+
+    it("flags a collection faster than the rating over the hours run", async () => {
+      const created = await request(t.app).post('/api/oil-log').set('cookie', operator)
+        .send({ equipmentId: belt.id, collectedOn: today(), volume: belt.ratedLitresPerHour * 2 + 1, unit: 'L', hoursRun: 2 }).expect(201);
+      expect(created.body.flags.map((f: { code: string }) => f.code)).toEqual(['above-rating']);
+    });
+
+    it("keeps an operator's older entries and other people's entries for the coordinator, who must give a reason", async () => {
+      const [old] = await t.dataSource.query(`SELECT id FROM oil_log_entry WHERE site_id = $1 AND equipment_id = $2 ORDER BY collected_on LIMIT 1`, [ids.north, belt.id]);
+      await t.dataSource.query(`UPDATE oil_log_entry SET created_at = now() - interval '3 days' WHERE id = $1`, [old.id]);
+      await request(t.app).patch(`/api/oil-log/${old.id}`).set('cookie', operator).send({ volume: 1 }).expect(403);
+      const refused = await request(t.app).patch(`/api/oil-log/${old.id}`).set('cookie', coordinator).send({ volume: 1 }).expect(400);
+      expect(refused.body.error.fields).toHaveProperty('reason');
+      await request(t.app).patch(`/api/oil-log/${old.id}`).set('cookie', coordinator).send({ volume: 1, unit: 'gal', reason: 'Drum gauge misread' }).expect(200);
+      const [entry] = await t.dataSource.query(`SELECT after FROM trail_entry WHERE entity_id = $1 AND action = 'update' ORDER BY id DESC LIMIT 1`, [old.id]);
+      expect(entry.after.reason).toBe('Drum gauge misread');
+    });
+
+    it('totals litres per month for the site', async () => {
+      const totals = await request(t.app).get(`/api/oil-log/totals?siteId=${ids.north}&by=month`).set('cookie', operator).expect(200);
+      expect(totals.body.items.length).toBeGreaterThanOrEqual(17);
+      expect(totals.body.items.every((row: { litres: number }) => row.litres > 0)).toBe(true);
+    });
+  });
+
+  describe('upkeep checks', () => {
+    it('opens one follow-up for a failed item', async () => {
+      const items = upkeepItems.map((item) => ({ key: item.key, outcome: item.key === 'no-leaks' ? 'fail' : 'pass', note: '' }));
+      const created = await request(t.app).post('/api/upkeep-checks').set('cookie', operator)
+        .send({ equipmentId: belt.id, checkedOn: today(), items, immersionValue: 3, immersionUnit: 'in' }).expect(201);
+      const followUps = await t.dataSource.query(`SELECT title, status FROM follow_up WHERE source_id = $1`, [created.body.id]);
+      expect(followUps).toHaveLength(1);
+      expect(followUps[0].title).toMatch(/no leaks/i);
+    });
+    it('refuses a checklist with an item missing', async () => {
+      const response = await request(t.app).post('/api/upkeep-checks').set('cookie', operator)
+        .send({ equipmentId: belt.id, checkedOn: today(), items: [{ key: 'no-leaks', outcome: 'pass' }] }).expect(400);
+      expect(response.body.error.fields).toHaveProperty('items');
+    });
+  });
+
+  describe('shipments', () => {
+    it('shows a large quantity generator the exception report overdue at 61 days without the signed copy (40 CFR 262.42(a)(2))', async () => {
+      const created = await request(t.app).post('/api/shipments').set('cookie', coordinator).send(shipment()).expect(201);
+      expect(created.body.status).toBe('overdue');
+      expect(created.body.deadlines.map((d: { step: string; daysLeft: number }) => [d.step, d.daysLeft])).toEqual([
+        ['contact-transporter-and-facility', -16],
+        ['exception-report', -1],
+      ]);
+      const overdue = await request(t.app).get(`/api/shipments?siteId=${ids.north}&status=overdue`).set('cookie', coordinator).expect(200);
+      expect(overdue.body.items.some((s: { id: string }) => s.id === created.body.id)).toBe(true);
+    });
+
+    it('flags used oil above 1,000 ppm total halogens (40 CFR 279.10(b)(1)(ii))', async () => {
+      const created = await request(t.app).post('/api/shipments').set('cookie', operator).send(shipment({ shippedOn: daysAgo(2), totalHalogensPpm: 1001 })).expect(201);
+      expect(created.body.flags.map((f: { code: string }) => f.code)).toEqual(['halogens-presumption']);
+    });
+
+    it('refuses malformed papers and writes nothing', async () => {
+      const before = await t.count('shipment');
+      const cases: Array<[Record<string, unknown>, string]> = [
+        [shipment({ documentNumber: '12345678ABC' }), 'documentNumber'],
+        [shipment({ transporterEpaId: 'IL12' }), 'transporterEpaId'],
+        [shipment({ receiverEpaId: '12D000000002' }), 'receiverEpaId'],
+        [shipment({ shippedOn: daysAgo(5), signedCopyReceivedOn: daysAgo(6) }), 'signedCopyReceivedOn'],
+        [shipment({ quantity: 0 }), 'quantity'],
+      ];
+      for (const [body, field] of cases) {
+        const response = await request(t.app).post('/api/shipments').set('cookie', coordinator).send(body).expect(400);
+        expect(response.body.error.fields).toHaveProperty(field);
+      }
+      expect(await t.count('shipment')).toBe(before);
+    });
+
+    it("lets the operator record papers but not change them once the signed copy is in; the coordinator still can", async () => {
+      const created = await request(t.app).post('/api/shipments').set('cookie', operator).send(shipment({ shippedOn: daysAgo(20) })).expect(201);
+      await request(t.app).patch(`/api/shipments/${created.body.id}`).set('cookie', operator).send({ signedCopyReceivedOn: daysAgo(3) }).expect(200);
+      await request(t.app).patch(`/api/shipments/${created.body.id}`).set('cookie', operator).send({ quantity: 230 }).expect(403);
+      const fixed = await request(t.app).patch(`/api/shipments/${created.body.id}`).set('cookie', coordinator).send({ quantity: 230 }).expect(200);
+      expect({ status: fixed.body.status, quantity: fixed.body.quantity, deadlines: fixed.body.deadlines }).toEqual({ status: 'complete', quantity: 230, deadlines: [] });
+    });
+
+    it('lets the auditor read only, and keeps coordinator.east to their site', async () => {
+      const auditor = await t.sessionFor('auditor@decant.test');
+      await request(t.app).get(`/api/shipments?siteId=${ids.north}`).set('cookie', auditor).expect(200);
+      await request(t.app).post('/api/shipments').set('cookie', auditor).send(shipment()).expect(403);
+      await request(t.app).post('/api/oil-log').set('cookie', auditor).send({}).expect(403);
+      const east = await t.sessionFor('coordinator.east@decant.test');
+      await request(t.app).get(`/api/shipments?siteId=${ids.north}`).set('cookie', east).expect(403);
+      await request(t.app).get(`/api/equipment/${belt.id}`).set('cookie', east).expect(404);
+      const mine = await request(t.app).get('/api/shipments?pageSize=200').set('cookie', east).expect(200);
+      expect(mine.body.items.every((s: { siteId: string }) => s.siteId === ids.east)).toBe(true);
+    });
+  });
+
+  describe('oil on hand', () => {
+    it('is opening balance plus collected minus shipped, with the 112.1 caution above 1,320 gal of storage', async () => {
+      const response = await request(t.app).get(`/api/sites/${ids.north}/oil-on-hand`).set('cookie', operator).expect(200);
+      const { openingLitres, collectedLitres, shippedLitres, onHandLitres, flags } = response.body;
+      expect(onHandLitres).toBeCloseTo(openingLitres + collectedLitres - shippedLitres, 6);
+      // The demo's north site stores 1,650 gal.
+      expect(flags.map((f: { code: string }) => f.code)).toContain('spcc-threshold');
+    });
+  });
+});
