@@ -1,4 +1,4 @@
-import { mdiAccountKeyOutline, mdiCogOutline, mdiFlaskOutline, mdiHistory, mdiViewDashboardOutline } from '@mdi/js';
+import { mdiAccountKeyOutline, mdiCogOutline, mdiFlaskOutline, mdiHistory, mdiOilLevel, mdiTruckOutline, mdiViewDashboardOutline } from '@mdi/js';
 import type { Action } from '@contracts/permissions.js';
 
 export interface Area {
@@ -9,12 +9,14 @@ export interface Area {
 }
 
 /**
- * The areas of the navigation, in product order. Oil log, Shipments, Periods, Follow-ups
- * and Tools join this list as they are built.
+ * The areas of the navigation, in product order. Periods, Follow-ups and Tools join this
+ * list as they are built.
  */
 export const areas: Area[] = [
   { title: 'Overview', icon: mdiViewDashboardOutline, routeName: 'overview', action: 'sites.read' },
   { title: 'Lab', icon: mdiFlaskOutline, routeName: 'lab', action: 'lab.read' },
+  { title: 'Oil log', icon: mdiOilLevel, routeName: 'oil-log', action: 'oil-log.read' },
+  { title: 'Shipments', icon: mdiTruckOutline, routeName: 'shipments', action: 'shipments.read' },
   { title: 'Trail', icon: mdiHistory, routeName: 'trail', action: 'trail.read' },
   { title: 'Set-up', icon: mdiCogOutline, routeName: 'setup', action: 'setup.manage' },
   { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },

@@ -1,5 +1,6 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
 import { setUnauthenticatedHandler } from '@/api/client';
+import { useSessionStore } from '@/stores/session';
 import { installGuards } from './guards';
 
 declare module 'vue-router' {
@@ -18,12 +19,23 @@ export const routes: RouteRecordRaw[] = [
     path: '/',
     component: () => import('@/layouts/ShellLayout.vue'),
     children: [
-      { path: '', name: 'home', redirect: { name: 'overview' } },
+      {
+        path: '',
+        name: 'home',
+        component: () => import('@/views/OverviewView.vue'),
+        // Each role lands where its daily work is; the operator's is the oil log entry.
+        beforeEnter: () => ({ name: useSessionStore().role === 'operator' ? 'oil-log' : 'overview' }),
+      },
       { path: 'overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { action: 'sites.read', title: 'Overview' } },
       { path: 'lab', name: 'lab', component: () => import('@/views/LabView.vue'), meta: { action: 'lab.read', title: 'Lab' } },
       { path: 'lab/certificates/new', name: 'lab-certificate-new', component: () => import('@/views/CertificateNewView.vue'), meta: { action: 'lab.write', title: 'Add a certificate' } },
       { path: 'lab/certificates/:id', name: 'lab-certificate', component: () => import('@/views/CertificateView.vue'), props: true, meta: { action: 'lab.read', title: 'Certificate' } },
       { path: 'lab/import', name: 'lab-import', component: () => import('@/views/LabImportView.vue'), meta: { action: 'lab.write', title: 'Import lab results' } },
+      { path: 'oil-log', name: 'oil-log', component: () => import('@/views/OilLogView.vue'), meta: { action: 'oil-log.read', title: 'Oil log' } },
+      { path: 'oil-log/equipment', name: 'equipment', component: () => import('@/views/EquipmentView.vue'), meta: { action: 'oil-log.read', title: 'Equipment' } },
+      { path: 'oil-log/equipment/:id', name: 'equipment-detail', component: () => import('@/views/EquipmentDetailView.vue'), props: true, meta: { action: 'oil-log.read', title: 'Equipment' } },
+      { path: 'oil-log/equipment/:id/upkeep', name: 'upkeep-check', component: () => import('@/views/UpkeepCheckView.vue'), props: true, meta: { action: 'oil-log.write', title: 'Upkeep check' } },
+      { path: 'shipments', name: 'shipments', component: () => import('@/views/ShipmentsView.vue'), meta: { action: 'shipments.read', title: 'Shipments' } },
       { path: 'setup', name: 'setup', component: () => import('@/views/SetupView.vue'), meta: { action: 'sites.read', title: 'Set-up' } },
       { path: 'trail', name: 'trail', component: () => import('@/views/TrailView.vue'), meta: { action: 'trail.read', title: 'Trail' } },
       { path: 'setup/people', name: 'setup-people', component: () => import('@/views/PeopleView.vue'), meta: { action: 'users.read', title: 'People and access' } },

@@ -2,7 +2,7 @@ import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import { can as roleCan, type Action } from '@contracts/permissions.js';
 import type { Me } from '@contracts/users.js';
-import { ApiError } from '@/api/client';
+import { ApiError, api } from '@/api/client';
 import { sessionApi } from '@/api/session';
 
 /** Who is signed in, what they may do, and which site they are looking at. */
@@ -44,9 +44,15 @@ export const useSessionStore = defineStore('session', () => {
     window.location.assign(redirectTo);
   }
 
+  /** Saves the user's unit choice on the server, so it follows them to every device. */
+  async function setUnitSystem(unitSystem: 'us' | 'metric'): Promise<void> {
+    await api.patch<void>('/me/preferences', { unitSystem });
+    if (me.value) me.value = { ...me.value, user: { ...me.value.user, unitSystem } };
+  }
+
   function forget(): void {
     me.value = null;
   }
 
-  return { me, loaded, signedIn, role, sites, currentSite, load, can, selectSite, signOut, forget };
+  return { me, loaded, signedIn, role, sites, currentSite, load, can, selectSite, signOut, setUnitSystem, forget };
 });

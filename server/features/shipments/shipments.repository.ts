@@ -45,7 +45,7 @@ export async function findShipment(db: Db, id: string): Promise<ShipmentView | n
   return row ? view(row) : null;
 }
 
-const sorts: Record<string, string> = { shippedOn: 's.shipped_on', documentNumber: 's.document_number', quantity: 's.quantity_litres' };
+const sorts: Record<string, string> = { shippedOn: 's.shipped_on', documentNumber: 's.document_number', quantityLitres: 's.quantity_litres' };
 
 export async function pageShipments(
   db: Db,

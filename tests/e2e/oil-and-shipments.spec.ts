@@ -1,0 +1,59 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoPassword } from '../../server/db/seed/demo-scenario.js';
+import { openBrowser, screenshot } from '../helpers/browser.js';
+import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
+
+describe('the oil log on a phone, and shipments', () => {
+  let stack: LiveStack;
+  let phone: Awaited<ReturnType<typeof openBrowser>>;
+  beforeAll(async () => {
+    stack = await startLiveStack({ withClient: true });
+    phone = await openBrowser({ width: 390, height: 844 });
+  });
+  afterAll(async () => {
+    await phone?.close();
+    await stack?.close();
+  });
+
+  async function signIn(email: string): Promise<void> {
+    const { page } = phone;
+    await page.context().clearCookies();
+    await page.goto(`${stack.appUrl}/`);
+    await page.getByText(email, { exact: true }).click();
+    await page.fill('#password', demoPassword);
+    await page.click('button[type=submit]');
+  }
+
+  it('lands the operator on the oil log and saves an entry in one screen', async () => {
+    const { page } = phone;
+    await signIn('operator@decant.test');
+    await page.waitForURL(`${stack.appUrl}/oil-log`);
+    await page.locator('[data-test="recent-entries"]').waitFor();
+    const before = (await stack.dataSource.query('SELECT count(*)::int AS n FROM oil_log_entry'))[0].n;
+    await page.fill('[data-test="oil-volume"] input', '2.4');
+    await screenshot(page, 'phone-oil-log');
+    await page.click('[data-test="save-oil"]');
+    await page.getByText('Saved').first().waitFor();
+    const after = (await stack.dataSource.query('SELECT count(*)::int AS n FROM oil_log_entry'))[0].n;
+    expect(after).toBe(before + 1);
+    const [entry] = await stack.dataSource.query('SELECT entered_volume, entered_unit FROM oil_log_entry ORDER BY created_at DESC LIMIT 1');
+    expect([Number(entry.entered_volume), entry.entered_unit]).toEqual([2.4, 'gal']);
+    // Nothing wider than the phone: a gloved thumb never scrolls sideways.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+    await screenshot(page, 'phone-oil-log-saved');
+  });
+
+  it('shows the coordinator the overdue exception report of the shipment whose signed copy never came back', async () => {
+    const { page } = phone;
+    await page.setViewportSize({ width: 1400, height: 900 });
+    await signIn('coordinator@decant.test');
+    await page.waitForURL(`${stack.appUrl}/overview`);
+    await page.goto(`${stack.appUrl}/shipments`);
+    // The demo's north site is a large quantity generator: switch to it.
+    await page.locator('.v-app-bar .v-select').click();
+    await page.getByRole('option', { name: 'Tamsin Creek Works' }).click();
+    await page.getByRole('button', { name: 'Overdue' }).click();
+    await page.getByText(/Exception report: \d+ days overdue/).first().waitFor();
+    await screenshot(page, 'shipments-overdue');
+  });
+});
