@@ -1,0 +1,79 @@
+import { DateTime } from 'luxon';
+import type { LimitInput, Measurement } from './types.js';
+
+/**
+ * 40 CFR 403.8(f)(2)(viii), significant noncompliance of an industrial user, per pollutant
+ * parameter and six-month period:
+ * (A) chronic: 66 % or more of all measurements exceed (by any magnitude) a numeric limit,
+ *     instantaneous limits included;
+ * (B) technical review criteria: 33 % or more of all measurements equal or exceed the limit
+ *     times 1.4 for BOD, TSS, fats, oil and grease, or 1.2 for other pollutants; pH excluded.
+ */
+export const CHRONIC_PERCENT = 66;
+export const TECHNICAL_REVIEW_PERCENT = 33;
+
+export interface SncVerdict {
+  parameterId: string;
+  parameterName: string;
+  window: { start: string; end: string };
+  measurements: number;
+  exceeding: number;
+  chronic: boolean;
+  reviewFactor: number | null;
+  atOrAboveReviewLevel: number | null;
+  technicalReview: boolean | null;
+}
+
+/** The six-month windows that touch the period: calendar halves, or the six months ending with it. */
+export function sncWindows(period: { start: string; end: string }, kind: 'calendar-halves' | 'rolling'): Array<{ start: string; end: string }> {
+  const end = DateTime.fromISO(period.end, { zone: 'UTC' });
+  // Rolling: the six calendar months ending with the period's last month.
+  if (kind === 'rolling') return [{ start: end.startOf('month').minus({ months: 5 }).toISODate()!, end: period.end }];
+  const windows: Array<{ start: string; end: string }> = [];
+  let cursor = DateTime.fromISO(period.start, { zone: 'UTC' });
+  while (cursor <= end) {
+    const start = cursor.set({ month: cursor.month <= 6 ? 1 : 7, day: 1 });
+    const windowEnd = start.plus({ months: 6 }).minus({ days: 1 });
+    windows.push({ start: start.toISODate()!, end: windowEnd.toISODate()! });
+    cursor = windowEnd.plus({ days: 1 });
+  }
+  return windows;
+}
+
+/** The verdict for one parameter in one window, from every single measurement against its point's limits. */
+export function sncVerdict(
+  parameter: { id: string; name: string; reviewFactor: number | null },
+  window: { start: string; end: string },
+  measurements: Measurement[],
+  limitsByPoint: Map<string, LimitInput[]>,
+): SncVerdict {
+  const inWindow = measurements.filter((m) => m.parameterId === parameter.id && m.day >= window.start && m.day <= window.end);
+  let exceeding = 0;
+  let atOrAbove = 0;
+  let counted = 0;
+  for (const m of inWindow) {
+    const limits = (limitsByPoint.get(m.dischargePointId) ?? []).filter((l) => l.parameterId === parameter.id);
+    const maxima = limits.filter((l) => l.statistic === 'daily-maximum' || l.statistic === 'instantaneous-maximum').map((l) => l.value);
+    const minima = limits.filter((l) => l.statistic === 'instantaneous-minimum').map((l) => l.value);
+    if (maxima.length === 0 && minima.length === 0) continue;
+    counted += 1;
+    if (m.qualifier === '<') continue;
+    const maximum = maxima.length ? Math.min(...maxima) : Infinity;
+    const minimum = minima.length ? Math.max(...minima) : -Infinity;
+    if (m.value > maximum || m.value < minimum) exceeding += 1;
+    if (parameter.reviewFactor !== null && maxima.length && m.value >= maximum * parameter.reviewFactor) atOrAbove += 1;
+  }
+  // Whole-number comparison, so exactly 66 % (say 33 of 50) is not lost to rounding.
+  const atLeast = (n: number, percent: number) => counted > 0 && n * 100 >= percent * counted;
+  return {
+    parameterId: parameter.id,
+    parameterName: parameter.name,
+    window,
+    measurements: counted,
+    exceeding,
+    chronic: atLeast(exceeding, CHRONIC_PERCENT),
+    reviewFactor: parameter.reviewFactor,
+    atOrAboveReviewLevel: parameter.reviewFactor === null ? null : atOrAbove,
+    technicalReview: parameter.reviewFactor === null ? null : atLeast(atOrAbove, TECHNICAL_REVIEW_PERCENT),
+  };
+}

@@ -1,0 +1,25 @@
+import type { DailyDischarge } from './daily-discharges.js';
+import { figureOf } from './daily-discharges.js';
+import type { Figure } from './types.js';
+
+export const mean = (values: number[]) => values.reduce((sum, v) => sum + v, 0) / values.length;
+
+/** 40 CFR 122.2, "maximum daily discharge limitation": the highest daily discharge. */
+export const dailyMaximum = (days: DailyDischarge[]): Figure | null => figureOf(days, (values) => Math.max(...values));
+
+/**
+ * 40 CFR 122.2, "average monthly discharge limitation": the sum of the daily discharges
+ * measured during a calendar month divided by their number — not the mean of raw samples.
+ */
+export function monthlyAverages(days: DailyDischarge[]): Array<{ month: string; value: Figure; days: number }> {
+  const byMonth = new Map<string, DailyDischarge[]>();
+  for (const day of days) {
+    const month = day.day.slice(0, 7);
+    byMonth.set(month, [...(byMonth.get(month) ?? []), day]);
+  }
+  return [...byMonth.entries()].map(([month, list]) => ({ month, value: figureOf(list, mean)!, days: list.length }));
+}
+
+/** "Exceed" is strictly greater than the limit; a "<ML" figure exceeds nothing. */
+export const exceeds = (figure: Figure | null, limit: number) => typeof figure === 'number' && figure > limit;
+export const fallsBelow = (figure: Figure | null, limit: number) => typeof figure === 'number' && figure < limit;

@@ -1,0 +1,61 @@
+/** Plain data in and out of the period compiler; no database, no clock. */
+export type NonDetectPolicy = 'zero' | 'mdl' | 'ml' | 'half-mdl';
+export type Statistic = 'daily-maximum' | 'monthly-average' | 'instantaneous-minimum' | 'instantaneous-maximum';
+
+export interface PermitSettings {
+  kind: 'pretreatment' | 'npdes';
+  nonDetectPolicy: NonDetectPolicy;
+  massLoadingFactor: number;
+  dailyMaxAppliesToEachGrab: boolean;
+  sncWindow: 'calendar-halves' | 'rolling';
+}
+
+export interface LimitInput {
+  id: string;
+  dischargePointId: string;
+  pointCode: string;
+  parameterId: string;
+  parameterName: string;
+  /** 40 CFR 403.8(f)(2)(viii)(B) factor; null for pH (and flow). */
+  sncReviewFactor: number | null;
+  /** Flow is monitored but is not a pollutant: no significant-noncompliance verdict. */
+  isPollutant: boolean;
+  statistic: Statistic;
+  value: number;
+  unit: string;
+  frequencyCount: number;
+  frequencyPer: 'day' | 'week' | 'month' | 'quarter';
+}
+
+export interface Measurement {
+  resultId: string;
+  certificateId: string;
+  dischargePointId: string;
+  parameterId: string;
+  /** The site's local calendar day of collection (YYYY-MM-DD). */
+  day: string;
+  qualifier: '<' | null;
+  /** In the limit's unit already (the caller converts). */
+  value: number;
+  mdl: number | null;
+  ml: number | null;
+}
+
+export interface FlowReading {
+  dischargePointId: string;
+  day: string;
+  /** Million gallons per day. */
+  mgd: number;
+}
+
+export interface PeriodInput {
+  permit: PermitSettings;
+  period: { start: string; end: string };
+  limits: LimitInput[];
+  /** Measurements from the start of the earliest six-month window to the period's end. */
+  measurements: Measurement[];
+  flows: FlowReading[];
+}
+
+/** A value that is a number, or "<ML" when every input was a non-detect. */
+export type Figure = number | '<ML';
