@@ -11,7 +11,9 @@ import { sessionMiddleware } from './auth/session.js';
 import type { Config } from './config/env.js';
 import { dischargePointsRoutes } from './features/discharge-points/discharge-points.routes.js';
 import { equipmentRoutes } from './features/equipment/equipment.routes.js';
+import { followUpsRoutes } from './features/follow-ups/follow-ups.routes.js';
 import { healthRoutes } from './features/health/health.routes.js';
+import { periodsRoutes } from './features/periods/periods.routes.js';
 import { oilLogRoutes } from './features/oil-log/oil-log.routes.js';
 import { oilOnHandRoutes } from './features/oil-log/oil-on-hand.routes.js';
 import { shipmentsRoutes } from './features/shipments/shipments.routes.js';
@@ -72,6 +74,8 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   api.use('/oil-log', oilLogRoutes(dataSource));
   api.use('/upkeep-checks', upkeepChecksRoutes(dataSource));
   api.use('/shipments', shipmentsRoutes(dataSource));
+  api.use('/periods', periodsRoutes(dataSource));
+  api.use('/follow-ups', followUpsRoutes(dataSource));
   api.use('/trail', trailRoutes(dataSource));
   api.use(apiNotFound);
   app.use('/api', api);

@@ -5,6 +5,7 @@ import { User } from '../../features/users/user.entity.js';
 import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
 import { seedLab } from './seed-lab.js';
 import { seedOil } from './seed-oil.js';
+import { seedFlowsAndPeriods } from './seed-periods.js';
 import { seedSetup } from './seed-setup.js';
 
 /**
@@ -48,5 +49,9 @@ export async function seedDemo(dataSource: DataSource): Promise<void> {
       { key: 'north', id: north.id, timeZone: north.timeZone },
       { key: 'east', id: east.id, timeZone: east.timeZone },
     ], operator.id);
+    await seedFlowsAndPeriods(manager, [
+      { id: north.id, timeZone: north.timeZone, outfall: 'OF-001', gallonsPerDay: 35000 },
+      { id: east.id, timeZone: east.timeZone, outfall: 'OF-002', gallonsPerDay: 15000 },
+    ], coordinator);
   });
 }

@@ -24,14 +24,14 @@ interface Twist {
 const twists: Record<'north' | 'east', Record<number, Twist>> = {
   north: {
     3: { hem: '5.0', ph: '7.4' }, 5: { hem: '126' }, 8: { opr: 76 }, 11: { analysedAfterDays: 31 }, 14: { sampleType: 'composite' },
-    17: { hem: '104' }, 21: { hem: '23.47' }, 24: { hem: '5.0' }, 26: { hem: '58.2' }, 27: { hem: '61.0' },
+    17: { hem: '150' }, 18: { hem: '145' }, 19: { hem: '152' }, 20: { hem: '141' }, 21: { hem: '23.47' }, 24: { hem: '5.0' }, 26: { hem: '58.2' }, 27: { hem: '61.0' },
   },
   east: {
     4: { temperature: 8.2 }, 6: { preservation: false }, 9: { hem: '112' }, 10: { spike: { spikeTrue: 40, spikeBackground: 2, msFound: 30, msdFound: 41 } },
-    13: { hem: '3.8' }, 16: { hem: '5.0' }, 20: { ph: '5.2' },
+    13: { hem: '3.8' }, 20: { ph: '5.2' },
   },
 };
-const nonDetects: Record<'north' | 'east', number[]> = { north: [3, 24], east: [16] };
+const nonDetects: Record<'north' | 'east', number[]> = { north: [3, 24], east: [15, 16] };
 /** The demo's missed sample: this event at the north site never happened. */
 const missedEvent = { site: 'north', event: 15 } as const;
 

@@ -1,3 +1,4 @@
+import { DateTime } from 'luxon';
 import type { EntityManager } from 'typeorm';
 
 /** Discharge points, one pretreatment permit per site, and their limits. Idempotent by natural keys. */
@@ -18,6 +19,8 @@ const permits = {
 } as const;
 
 export async function seedSetup(manager: EntityManager, siteIds: Record<'north' | 'east', string>): Promise<void> {
+  // The demo permits took effect when the demo's 18 months of records begin.
+  const effectiveFrom = DateTime.now().setZone('America/Chicago').startOf('month').minus({ months: 17 }).toISODate();
   const parameter = async (code: string) => (await manager.query('SELECT id FROM parameter WHERE site_id IS NULL AND code = $1', [code]))[0].id as string;
   const hem = await parameter('oil-grease-hem');
   const ph = await parameter('ph');
@@ -38,8 +41,8 @@ export async function seedSetup(manager: EntityManager, siteIds: Record<'north' 
       `INSERT INTO permit (site_id, kind, number, issuing_authority, authority_email, effective_from, effective_to, reporting_frequency,
          report_due_days, non_detect_policy, daily_max_applies_to_each_grab, mass_loading_factor, snc_window, late_report_days)
        VALUES ($1, 'pretreatment', $2, 'Tamsin Creek Utilities, Pretreatment Office', 'pretreatment@tamsincreek-utilities.test',
-         '2024-07-01', '2029-06-30', 'semiannual', 30, 'zero', false, 8.34, 'calendar-halves', 45) RETURNING id`,
-      [siteId, spec.number],
+         $3, '2030-06-30', 'semiannual', 30, 'zero', false, 8.34, 'calendar-halves', 45) RETURNING id`,
+      [siteId, spec.number, effectiveFrom],
     );
     const [outfall] = await manager.query('SELECT id FROM discharge_point WHERE site_id = $1 AND code = $2', [siteId, spec.outfall]);
     const limits: Array<[string, string, number, string, number, string, string]> = [
@@ -47,7 +50,7 @@ export async function seedSetup(manager: EntityManager, siteIds: Record<'north' 
       [hem, 'monthly-average', 50, 'mg/L', 2, 'month', 'grab'],
       [ph, 'instantaneous-minimum', 5.5, 'SU', 2, 'month', 'grab'],
       [ph, 'instantaneous-maximum', 10.5, 'SU', 2, 'month', 'grab'],
-      [flow, 'daily-maximum', spec.flowLimit, 'gal/day', 1, 'day', 'composite'],
+      [flow, 'daily-maximum', spec.flowLimit, 'gal/day', 5, 'week', 'composite'],
     ];
     for (const [parameterId, statistic, value, unit, count, per, sampleType] of limits) {
       await manager.query(

@@ -22,16 +22,41 @@ const unitKey = (day: string, per: LimitInput['frequencyPer']) => {
   }
 };
 
+function unitLength(key: string, per: LimitInput['frequencyPer']): number {
+  switch (per) {
+    case 'day':
+      return 1;
+    case 'week':
+      return 7;
+    case 'month':
+      return DateTime.fromISO(`${key}-01`, { zone: 'UTC' }).daysInMonth!;
+    case 'quarter': {
+      const [year, quarter] = key.split('-Q').map(Number);
+      const start = DateTime.fromObject({ year: year!, month: (quarter! - 1) * 3 + 1, day: 1 }, { zone: 'UTC' });
+      return start.plus({ months: 3 }).diff(start, 'days').days;
+    }
+  }
+}
+
 /**
  * Samples taken against samples required by the monitoring frequency ("n per day / week /
- * month / quarter"), counted per calendar unit inside the period. A partial week at a period
- * edge is counted as a whole one (common practice, no published source; a permit may differ).
+ * month / quarter"), counted per calendar unit inside the period.
  */
-export function monitoringCheck(limit: LimitInput, measurements: Measurement[], period: { start: string; end: string }): MonitoringCheck {
+export function monitoringCheck(limit: LimitInput, measurements: Measurement[], period: { start: string; end: string; asOf?: string }): MonitoringCheck {
   const units = new Map<string, number>();
+  const lastDayOf = new Map<string, string>();
+  const daysIn = new Map<string, number>();
   for (let day = DateTime.fromISO(period.start, { zone: 'UTC' }); day.toISODate()! <= period.end; day = day.plus({ days: 1 })) {
-    units.set(unitKey(day.toISODate()!, limit.frequencyPer), 0);
+    const key = unitKey(day.toISODate()!, limit.frequencyPer);
+    units.set(key, 0);
+    lastDayOf.set(key, day.toISODate()!);
+    daysIn.set(key, (daysIn.get(key) ?? 0) + 1);
   }
+  // A week or month cut by the period's edge belongs to the neighbouring period's count as well:
+  // only whole units are counted (common practice, no published source; a permit may differ).
+  for (const [key, days] of daysIn) if (days < unitLength(key, limit.frequencyPer)) units.delete(key);
+  // A week or month still running is not missed yet.
+  if (period.asOf) for (const [key, last] of lastDayOf) if (last > period.asOf) units.delete(key);
   // One sample a collection: several results of one sample count once.
   const samples = new Set(measurements.map((m) => `${m.day}|${m.resultId}`));
   for (const key of samples) {

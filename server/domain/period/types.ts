@@ -50,7 +50,8 @@ export interface FlowReading {
 
 export interface PeriodInput {
   permit: PermitSettings;
-  period: { start: string; end: string };
+  /** `asOf`: the site's today; monitoring units not over yet are not counted as missed. */
+  period: { start: string; end: string; asOf?: string };
   limits: LimitInput[];
   /** Measurements from the start of the earliest six-month window to the period's end. */
   measurements: Measurement[];

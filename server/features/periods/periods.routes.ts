@@ -1,0 +1,39 @@
+import { Router } from 'express';
+import type { DataSource } from 'typeorm';
+import { z } from 'zod';
+import { currentUser } from '../../auth/current-user.js';
+import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
+import { requirePermission } from '../../middleware/require-permission.js';
+import { validate } from '../../middleware/validate.js';
+import { compileAndSave, ensurePeriods, findPeriod, listPeriods, summarise } from './periods.service.js';
+
+const ListQuery = z.object({ siteId: z.uuid('Not a valid id').optional(), permitId: z.uuid('Not a valid id').optional() });
+const IdParams = z.object({ id: z.uuid('Not a valid id') });
+
+export function periodsRoutes(dataSource: DataSource): Router {
+  const router = Router();
+
+  router.get('/', requirePermission('periods.read'), validate({ query: ListQuery }), async (_req, res) => {
+    const user = currentUser(res);
+    const { siteId, permitId } = res.locals.query as z.infer<typeof ListQuery>;
+    if (siteId) assertSiteAllowed(user, siteId);
+    const siteIds = siteId ? [siteId] : user.siteIds;
+    const permits = await dataSource.query('SELECT id FROM permit WHERE site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR id = $2)', [siteIds, permitId ?? null]);
+    for (const permit of permits) await ensurePeriods(dataSource, permit.id);
+    res.json({ items: await listPeriods(dataSource, siteIds, permitId) });
+  });
+
+  router.get('/:id/summary', requirePermission('periods.read'), validate({ params: IdParams }), async (_req, res) => {
+    const period = await findPeriod(dataSource, res.locals.params.id);
+    assertSiteVisible(currentUser(res), period?.siteId, 'Period');
+    res.json(await summarise(dataSource, period!));
+  });
+
+  router.post('/:id/compile', requirePermission('periods.compile'), validate({ params: IdParams }), async (_req, res) => {
+    const period = await findPeriod(dataSource, res.locals.params.id);
+    assertSiteVisible(currentUser(res), period?.siteId, 'Period');
+    res.json(await compileAndSave(dataSource, currentUser(res), period!.id));
+  });
+
+  return router;
+}

@@ -1,0 +1,137 @@
+import { createHash } from 'node:crypto';
+import { DateTime } from 'luxon';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { CurrentUser } from '../../auth/current-user.js';
+import { violationObligations } from '../../domain/notification-deadlines.js';
+import { compilePeriod, type PeriodSummaryCore } from '../../domain/period/period-summary.js';
+import { reportingPeriods } from '../../domain/reporting-periods.js';
+import { notFound } from '../../errors/app-error.js';
+import { openFollowUp } from '../follow-ups/open-follow-up.js';
+import { siteToday } from '../site-today.js';
+import { recordTrail } from '../trail/trail.js';
+import { loadPeriodInput, type PeriodRecord } from './period-input.repository.js';
+
+type Db = DataSource | EntityManager;
+
+/** The same id for the same finding at every compile, so its follow-ups open once. */
+function stableId(...parts: string[]): string {
+  const hex = createHash('sha256').update(parts.join('|')).digest('hex');
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-8${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
+}
+
+export const summaryCautions = [
+  'This summary is a record-keeping aid. The permit and the control authority decide how values are computed and reported: confirm with them before you report.',
+  'Daily discharges, averages and non-detects follow the definitions of 40 CFR 122.2 and the permit settings stated here; a permit may define them differently.',
+];
+
+export interface PeriodSummary extends PeriodSummaryCore {
+  periodId: string;
+  permitId: string;
+  siteId: string;
+  period: { start: string; end: string; due: string };
+  status: string;
+  compiledAt: string;
+  oil: { collectedLitres: number; shippedLitres: number };
+  openFollowUps: number;
+  labFlagCount: number;
+  cautions: string[];
+}
+
+const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at
+  FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
+const record = (row: Record<string, any>): PeriodRecord => ({
+  id: row.id, permitId: row.permit_id, siteId: row.site_id, timeZone: row.time_zone, startsOn: row.starts_on, endsOn: row.ends_on, dueOn: row.due_on, status: row.status,
+});
+
+/** Creates the permit's periods up to the one running today; safe to call on every read. */
+export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
+  const [permit] = await db.query('SELECT id, site_id, effective_from::text, effective_to::text, reporting_frequency, report_due_days FROM permit WHERE id = $1', [permitId]);
+  if (!permit) return;
+  const periods = reportingPeriods(
+    { effectiveFrom: permit.effective_from, effectiveTo: permit.effective_to, reportingFrequency: permit.reporting_frequency, reportDueDays: permit.report_due_days },
+    await siteToday(db, permit.site_id),
+  );
+  if (periods.length === 0) return;
+  await db.query(
+    `INSERT INTO reporting_period (permit_id, starts_on, ends_on, due_on)
+     SELECT $1, * FROM unnest($2::date[], $3::date[], $4::date[]) ON CONFLICT (permit_id, starts_on) DO NOTHING`,
+    [permitId, periods.map((p) => p.startsOn), periods.map((p) => p.endsOn), periods.map((p) => p.dueOn)],
+  );
+}
+
+export async function findPeriod(db: Db, id: string): Promise<PeriodRecord | null> {
+  const [row] = await db.query(`${periodSelect} WHERE rp.id = $1`, [id]);
+  return row ? record(row) : null;
+}
+
+export async function listPeriods(db: Db, siteIds: string[], permitId?: string) {
+  const rows = await db.query(
+    `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY rp.starts_on DESC`,
+    [siteIds, permitId ?? null],
+  );
+  return rows.map((row: Record<string, any>) => ({ ...record(row), compiledAt: row.compiled_at?.toISOString() ?? null }));
+}
+
+/** The summary of one period, compiled now from the records (nothing is written). */
+export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
+  const core = compilePeriod(await loadPeriodInput(db, period));
+  const [oil] = await db.query(
+    `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
+            (SELECT coalesce(sum(quantity_litres), 0) FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3) AS shipped,
+            (SELECT count(*)::int FROM follow_up WHERE site_id = $1 AND status = 'open') AS open_follow_ups,
+            (SELECT count(*)::int FROM lab_result r JOIN lab_sample s ON s.id = r.sample_id JOIN lab_certificate c ON c.id = s.certificate_id
+              WHERE c.site_id = $1 AND s.collected_on BETWEEN $2 AND $3 AND jsonb_array_length(r.flags) > 0) AS lab_flags`,
+    [period.siteId, period.startsOn, period.endsOn],
+  );
+  return {
+    periodId: period.id, permitId: period.permitId, siteId: period.siteId, status: period.status,
+    period: { start: period.startsOn, end: period.endsOn, due: period.dueOn }, compiledAt: now.toISOString(), ...core,
+    oil: { collectedLitres: Number(oil.collected), shippedLitres: Number(oil.shipped) },
+    openFollowUps: oil.open_follow_ups, labFlagCount: oil.lab_flags, cautions: summaryCautions,
+  };
+}
+
+/**
+ * Saves the summary and opens the follow-ups the rules require. Opening is idempotent: each
+ * follow-up is keyed by its kind and source, so recompiling opens nothing twice.
+ */
+export async function compileAndSave(dataSource: DataSource, user: CurrentUser, periodId: string): Promise<PeriodSummary> {
+  return dataSource.transaction((manager) => compileWithin(manager, user, periodId));
+}
+
+/** The compile itself, inside the caller's transaction (the seed compiles the demo's periods). */
+export async function compileWithin(manager: EntityManager, user: Pick<CurrentUser, 'id' | 'email'>, periodId: string): Promise<PeriodSummary> {
+  {
+    const period = await findPeriod(manager, periodId);
+    if (!period) throw notFound('Period');
+    const summary = await summarise(manager, period);
+    const [permit] = await manager.query('SELECT kind FROM permit WHERE id = $1', [period.permitId]);
+    for (const row of summary.rows) {
+      for (const exceedance of row.exceedances) {
+        const [aware] = exceedance.certificateIds[0]
+          ? await manager.query('SELECT created_at FROM lab_certificate WHERE id = $1', [exceedance.certificateIds[0]])
+          : [{ created_at: new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`) }];
+        for (const obligation of violationObligations(permit.kind, row.statistic, aware.created_at)) {
+          await openFollowUp(manager, {
+            siteId: period.siteId, kind: obligation.kind, sourceEntity: 'exceedance', sourceId: stableId(row.limitId, exceedance.date),
+            title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`, dueAt: obligation.dueAt,
+          });
+        }
+      }
+      for (const missed of row.missedMonitoring) {
+        await openFollowUp(manager, {
+          siteId: period.siteId, kind: 'missed-sample', sourceEntity: 'missed-monitoring', sourceId: stableId(row.dischargePointId, row.parameterId, missed.unit),
+          title: `Missed sample: ${row.parameter} at ${row.pointCode}, ${missed.unit} (${missed.taken} of ${missed.required})`,
+          dueAt: DateTime.fromISO(period.dueOn, { zone: period.timeZone }).endOf('day').toJSDate(),
+        });
+      }
+    }
+    const [saved] = await manager.query(`UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
+      compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`, [periodId, JSON.stringify(summary)]);
+    await recordTrail(manager, user, {
+      action: 'compile', entity: 'reporting-period', entityId: periodId, siteId: period.siteId,
+      after: { status: saved[0].status, exceeded: summary.rows.filter((r) => r.exceeded).length },
+    });
+    return { ...summary, status: saved[0].status };
+  }
+}

@@ -1,0 +1,99 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoIds } from '../fixtures/lab.js';
+import { startTestApp, type TestApp } from '../helpers/test-app.js';
+
+describe('periods, summaries and follow-ups', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  let coordinator: string;
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+    coordinator = await t.sessionFor('coordinator@decant.test');
+  });
+  afterAll(() => t.close());
+
+  it('compiles a fresh permit fed through the API to the hand-worked values of 40 CFR 122.2', async () => {
+    // A monthly NPDES-style permit at a new point, with hand-worked grabs in March 2026.
+    const point = await request(t.app).post(`/api/sites/${ids.north}/discharge-points`).set('cookie', coordinator)
+      .send({ code: 'OF-HW', name: 'Hand-worked outfall', receiving: 'surface-water' }).expect(201);
+    const permit = await request(t.app).post('/api/permits').set('cookie', coordinator).send({
+      siteId: ids.north, kind: 'npdes', number: 'HW-0001', issuingAuthority: 'State agency', effectiveFrom: '2026-03-01', effectiveTo: '2026-03-31',
+      reportingFrequency: 'monthly', reportDueDays: 28, nonDetectPolicy: 'half-mdl',
+    }).expect(201);
+    for (const [statistic, value] of [['daily-maximum', 20], ['monthly-average', 10]] as const) {
+      await request(t.app).post(`/api/permits/${permit.body.id}/limits`).set('cookie', coordinator)
+        .send({ dischargePointId: point.body.id, parameterId: ids.hem, statistic, value, unit: 'mg/L', frequencyCount: 1, frequencyPer: 'week', sampleType: 'grab' }).expect(201);
+    }
+    const sample = (collectedAt: string, value: string, qualifier: '<' | null = null) => ({
+      dischargePointId: point.body.id, collectedAt, collectedBy: 'HW', sampleType: 'grab', preservationConfirmed: true, temperatureOnReceiptC: 4,
+      results: [{ parameterId: ids.hem, method: '1664B', qualifier, value, mdl: 1.4, ml: 5, unit: 'mg/L', analysedAt: null }],
+    });
+    // Mar 3: 8 and 12 → daily 10. Mar 10: 24 (over 20). Mar 17: <5.0 → half MDL 0.7. Mar 24 23:30 local: 6.
+    // Monthly average = (10 + 24 + 0.7 + 6) / 4 = 10.175 > 10.
+    const samples = [sample('2026-03-03T08:00', '8'), sample('2026-03-03T14:00', '12'), sample('2026-03-10T09:00', '24'),
+      sample('2026-03-17T09:00', '5.0', '<'), sample('2026-03-24T23:30', '6')];
+    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send({
+      siteId: ids.north, labName: 'HW Lab', labAccreditationNumber: 'HW', reportNumber: `HW-${Date.now()}`, receivedOn: '2026-03-26', samples,
+    }).expect(201);
+
+    const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
+    expect(periods.body.items.map((p: { startsOn: string; endsOn: string; dueOn: string }) => [p.startsOn, p.endsOn, p.dueOn])).toEqual([['2026-03-01', '2026-03-31', '2026-04-28']]);
+    const summary = await request(t.app).get(`/api/periods/${periods.body.items[0].id}/summary`).set('cookie', coordinator).expect(200);
+    const byStatistic = Object.fromEntries(summary.body.rows.map((r: { statistic: string }) => [r.statistic, r]));
+    expect(byStatistic['daily-maximum']).toMatchObject({ computedValue: 24, exceeded: true, samplesTaken: 5, limitValue: 20, unit: 'mg/L' });
+    expect(byStatistic['monthly-average'].computedValue).toBeCloseTo(10.175, 10);
+    expect(byStatistic['monthly-average'].exceeded).toBe(true);
+    expect(byStatistic['daily-maximum'].dailyValues.map((d: { day: string }) => d.day)).toEqual(['2026-03-03', '2026-03-10', '2026-03-17', '2026-03-24']);
+    expect(summary.body.nonDetectPolicy).toBe('half-mdl');
+    expect(summary.body.significantNoncompliance).toBeNull();
+    expect(summary.body.cautions[0]).toMatch(/permit and the control authority decide/);
+
+    // Compiling opens the 122.41(l)(6) reports once, however often it runs.
+    await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
+    const count = async () => (await t.dataSource.query(`SELECT count(*)::int AS n FROM follow_up WHERE kind IN ('report-within-24-hours', 'written-report')`))[0].n;
+    const first = await count();
+    expect(first).toBe(2);
+    await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
+    expect(await count()).toBe(first);
+  });
+
+  it('closes a follow-up with a note, in the trail, once', async () => {
+    const [open] = await t.dataSource.query(`SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' LIMIT 1`, [ids.north]);
+    const closed = await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator).send({ note: 'Phoned the pretreatment office' }).expect(200);
+    expect(['done', 'done-late']).toContain(closed.body.status);
+    await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator).send({ note: 'Again' }).expect(409);
+    const [entry] = await t.dataSource.query(`SELECT action FROM trail_entry WHERE entity_id = $1`, [open.id]);
+    expect(entry.action).toBe('close');
+    const refused = await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator).send({ note: '' }).expect(400);
+    expect(refused.body.error.fields).toHaveProperty('note');
+  });
+
+  it('shows the demo its significant-noncompliance verdicts: technical review met, chronic not', async () => {
+    const periods = await request(t.app).get(`/api/periods?siteId=${ids.north}`).set('cookie', coordinator).expect(200);
+    const verdicts = [];
+    for (const period of periods.body.items) {
+      const summary = await request(t.app).get(`/api/periods/${period.id}/summary`).set('cookie', coordinator).expect(200);
+      verdicts.push(...(summary.body.significantNoncompliance ?? []).filter((v: { parameterName: string }) => v.parameterName.startsWith('Oil and grease')));
+    }
+    expect(verdicts.some((v) => v.technicalReview === true && v.chronic === false)).toBe(true);
+  });
+
+  it('keeps periods to those who may read them, and compiling to the coordinator', async () => {
+    const operator = await t.sessionFor('operator@decant.test');
+    await request(t.app).get('/api/periods').set('cookie', operator).expect(403);
+    const auditor = await t.sessionFor('auditor@decant.test');
+    const [period] = (await request(t.app).get(`/api/periods?siteId=${ids.north}`).set('cookie', auditor).expect(200)).body.items;
+    await request(t.app).get(`/api/periods/${period.id}/summary`).set('cookie', auditor).expect(200);
+    await request(t.app).post(`/api/periods/${period.id}/compile`).set('cookie', auditor).expect(403);
+    const east = await t.sessionFor('coordinator.east@decant.test');
+    await request(t.app).get(`/api/periods/${period.id}/summary`).set('cookie', east).expect(404);
+    await request(t.app).get(`/api/periods?siteId=${ids.north}`).set('cookie', east).expect(403);
+    const mine = await request(t.app).get('/api/periods').set('cookie', east).expect(200);
+    expect(mine.body.items.every((p: { siteId: string }) => p.siteId === ids.east)).toBe(true);
+    await request(t.app).get('/api/follow-ups').set('cookie', auditor).expect(200);
+    const [someFollowUp] = await t.dataSource.query(`SELECT id FROM follow_up WHERE status = 'open' LIMIT 1`);
+    await request(t.app).post(`/api/follow-ups/${someFollowUp.id}/close`).set('cookie', auditor).send({ note: 'Not mine to close' }).expect(403);
+  });
+});
