@@ -1,4 +1,4 @@
-import { mdiAccountKeyOutline, mdiCogOutline, mdiFlaskOutline, mdiHistory, mdiOilLevel, mdiTruckOutline, mdiViewDashboardOutline } from '@mdi/js';
+import { mdiAccountKeyOutline, mdiBellAlertOutline, mdiCalendarRange, mdiCogOutline, mdiFlaskOutline, mdiHistory, mdiOilLevel, mdiTruckOutline, mdiViewDashboardOutline } from '@mdi/js';
 import type { Action } from '@contracts/permissions.js';
 
 export interface Area {
@@ -9,14 +9,15 @@ export interface Area {
 }
 
 /**
- * The areas of the navigation, in product order. Periods, Follow-ups and Tools join this
- * list as they are built.
+ * The areas of the navigation, in product order. Tools joins this list when it is built.
  */
 export const areas: Area[] = [
   { title: 'Overview', icon: mdiViewDashboardOutline, routeName: 'overview', action: 'sites.read' },
   { title: 'Lab', icon: mdiFlaskOutline, routeName: 'lab', action: 'lab.read' },
   { title: 'Oil log', icon: mdiOilLevel, routeName: 'oil-log', action: 'oil-log.read' },
   { title: 'Shipments', icon: mdiTruckOutline, routeName: 'shipments', action: 'shipments.read' },
+  { title: 'Periods', icon: mdiCalendarRange, routeName: 'periods', action: 'periods.read' },
+  { title: 'Follow-ups', icon: mdiBellAlertOutline, routeName: 'follow-ups', action: 'follow-ups.read' },
   { title: 'Trail', icon: mdiHistory, routeName: 'trail', action: 'trail.read' },
   { title: 'Set-up', icon: mdiCogOutline, routeName: 'setup', action: 'setup.manage' },
   { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },

@@ -6,9 +6,9 @@ import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 // What each role's navigation shows, from the permission table's areas.
 const expectedAreas: Record<string, string[]> = {
   administrator: ['Overview', 'Trail', 'People and access'],
-  coordinator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Trail', 'Set-up'],
-  operator: ['Overview', 'Lab', 'Oil log', 'Shipments'],
-  auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Trail'],
+  coordinator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Follow-ups', 'Trail', 'Set-up'],
+  operator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Follow-ups'],
+  auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Follow-ups', 'Trail'],
 };
 
 describe('signing in with a browser', () => {

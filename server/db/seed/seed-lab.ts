@@ -121,10 +121,14 @@ export async function seedLab(
               unit: 'SU', analysed: local(collected.plus({ minutes: 10 })).replace('T', ' ') },
           ],
         });
-        await service.insertCertificate(manager, coordinator, request, {
+        const id = await service.insertCertificate(manager, coordinator, request, {
           upload: { originalname: `${reportNumber}.pdf`, buffer: pdf, size: pdf.length },
           mediaType: 'application/pdf',
         });
+        // Entered the morning it came in: that is when the coordinator became aware of its results.
+        await manager.query('UPDATE lab_certificate SET created_at = $2 WHERE id = $1', [
+          id, collected.plus({ days: 1 }).set({ hour: 10, minute: 0 }).toJSDate(),
+        ]);
       }
     }
   }

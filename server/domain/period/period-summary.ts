@@ -1,44 +1,11 @@
 import { dailyDischarges, type DailyDischarge } from './daily-discharges.js';
-import { monitoringCheck, type MonitoringCheck } from './monitoring.js';
-import { sncVerdict, sncWindows, type SncVerdict } from './significant-noncompliance.js';
+import { monitoringCheck } from './monitoring.js';
+import { sncVerdict, sncWindows } from './significant-noncompliance.js';
 import { dailyMaximum, exceeds, fallsBelow, monthlyAverages } from './statistics.js';
+import type { Exceedance, LimitRow, PeriodSummaryCore } from '../../contracts/periods.js';
 import type { Figure, LimitInput, Measurement, PeriodInput } from './types.js';
 
-export interface Exceedance {
-  date: string;
-  value: number;
-  limit: number;
-  percentOver: number;
-  resultIds: string[];
-  certificateIds: string[];
-}
-
-export interface LimitRow {
-  limitId: string;
-  dischargePointId: string;
-  pointCode: string;
-  parameterId: string;
-  parameter: string;
-  statistic: LimitInput['statistic'];
-  unit: string;
-  limitValue: number;
-  /** The statistic over the period: the highest monthly average for a monthly limit. */
-  computedValue: Figure | null;
-  exceeded: boolean;
-  samplesTaken: number;
-  samplesRequired: number;
-  missedMonitoring: MonitoringCheck['missed'];
-  dailyValues: Array<{ day: string; value: Figure; massLoading: DailyDischarge['massLoading'] }>;
-  monthlyValues: Array<{ month: string; value: Figure; days: number; exceeded: boolean }>;
-  exceedances: Exceedance[];
-}
-
-export interface PeriodSummaryCore {
-  nonDetectPolicy: PeriodInput['permit']['nonDetectPolicy'];
-  massLoadingFactor: number;
-  rows: LimitRow[];
-  significantNoncompliance: SncVerdict[] | null;
-}
+export type { Exceedance, LimitRow, PeriodSummaryCore };
 
 const percentOver = (value: number, limit: number) => (limit === 0 ? 0 : Math.round(((value - limit) / limit) * 1000) / 10);
 const figure = (day: DailyDischarge): Figure => (day.allNonDetect ? '<ML' : day.value);
@@ -128,7 +95,7 @@ function limitRow(limit: LimitInput, input: PeriodInput): LimitRow {
  */
 export function compilePeriod(input: PeriodInput): PeriodSummaryCore {
   const rows = input.limits.map((limit) => limitRow(limit, input));
-  let significantNoncompliance: SncVerdict[] | null = null;
+  let significantNoncompliance: PeriodSummaryCore['significantNoncompliance'] = null;
   if (input.permit.kind === 'pretreatment') {
     const limitsByPoint = new Map<string, LimitInput[]>();
     for (const limit of input.limits) limitsByPoint.set(limit.dischargePointId, [...(limitsByPoint.get(limit.dischargePointId) ?? []), limit]);

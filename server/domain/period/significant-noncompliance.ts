@@ -1,4 +1,5 @@
 import { DateTime } from 'luxon';
+import type { SncVerdict } from '../../contracts/periods.js';
 import type { LimitInput, Measurement } from './types.js';
 
 /**
@@ -12,17 +13,7 @@ import type { LimitInput, Measurement } from './types.js';
 export const CHRONIC_PERCENT = 66;
 export const TECHNICAL_REVIEW_PERCENT = 33;
 
-export interface SncVerdict {
-  parameterId: string;
-  parameterName: string;
-  window: { start: string; end: string };
-  measurements: number;
-  exceeding: number;
-  chronic: boolean;
-  reviewFactor: number | null;
-  atOrAboveReviewLevel: number | null;
-  technicalReview: boolean | null;
-}
+export type { SncVerdict };
 
 /** The six-month windows that touch the period: calendar halves, or the six months ending with it. */
 export function sncWindows(period: { start: string; end: string }, kind: 'calendar-halves' | 'rolling'): Array<{ start: string; end: string }> {

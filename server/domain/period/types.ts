@@ -1,6 +1,7 @@
 /** Plain data in and out of the period compiler; no database, no clock. */
 export type NonDetectPolicy = 'zero' | 'mdl' | 'ml' | 'half-mdl';
-export type Statistic = 'daily-maximum' | 'monthly-average' | 'instantaneous-minimum' | 'instantaneous-maximum';
+export type { Statistic } from '../../contracts/periods.js';
+import type { Statistic } from '../../contracts/periods.js';
 
 export interface PermitSettings {
   kind: 'pretreatment' | 'npdes';
@@ -59,4 +60,4 @@ export interface PeriodInput {
 }
 
 /** A value that is a number, or "<ML" when every input was a non-detect. */
-export type Figure = number | '<ML';
+export type { Figure } from '../../contracts/periods.js';

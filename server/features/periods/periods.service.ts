@@ -3,7 +3,8 @@ import { DateTime } from 'luxon';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { violationObligations } from '../../domain/notification-deadlines.js';
-import { compilePeriod, type PeriodSummaryCore } from '../../domain/period/period-summary.js';
+import type { PeriodSummary } from '../../contracts/periods.js';
+import { compilePeriod } from '../../domain/period/period-summary.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
 import { notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
@@ -23,19 +24,6 @@ export const summaryCautions = [
   'This summary is a record-keeping aid. The permit and the control authority decide how values are computed and reported: confirm with them before you report.',
   'Daily discharges, averages and non-detects follow the definitions of 40 CFR 122.2 and the permit settings stated here; a permit may define them differently.',
 ];
-
-export interface PeriodSummary extends PeriodSummaryCore {
-  periodId: string;
-  permitId: string;
-  siteId: string;
-  period: { start: string; end: string; due: string };
-  status: string;
-  compiledAt: string;
-  oil: { collectedLitres: number; shippedLitres: number };
-  openFollowUps: number;
-  labFlagCount: number;
-  cautions: string[];
-}
 
 const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at
   FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;

@@ -1,0 +1,66 @@
+/** The period summary on the wire: what GET /api/periods/:id/summary answers. Field names are stable. */
+export type Figure = number | '<ML';
+export type Statistic = 'daily-maximum' | 'monthly-average' | 'instantaneous-minimum' | 'instantaneous-maximum';
+
+export interface Exceedance {
+  /** A day (YYYY-MM-DD), or a month (YYYY-MM) for a monthly average. */
+  date: string;
+  value: number;
+  limit: number;
+  percentOver: number;
+  resultIds: string[];
+  certificateIds: string[];
+}
+
+export interface LimitRow {
+  limitId: string;
+  dischargePointId: string;
+  pointCode: string;
+  parameterId: string;
+  parameter: string;
+  statistic: Statistic;
+  unit: string;
+  limitValue: number;
+  /** The statistic over the period ("<ML" when every input was a non-detect); the highest month for a monthly average. */
+  computedValue: Figure | null;
+  exceeded: boolean;
+  samplesTaken: number;
+  samplesRequired: number;
+  missedMonitoring: Array<{ unit: string; taken: number; required: number }>;
+  dailyValues: Array<{ day: string; value: Figure; massLoading: { lbPerDay: number; kgPerDay: number } | null }>;
+  monthlyValues: Array<{ month: string; value: Figure; days: number; exceeded: boolean }>;
+  exceedances: Exceedance[];
+}
+
+export interface SncVerdict {
+  parameterId: string;
+  parameterName: string;
+  window: { start: string; end: string };
+  measurements: number;
+  exceeding: number;
+  chronic: boolean;
+  reviewFactor: number | null;
+  atOrAboveReviewLevel: number | null;
+  technicalReview: boolean | null;
+}
+
+export interface PeriodSummaryCore {
+  nonDetectPolicy: 'zero' | 'mdl' | 'ml' | 'half-mdl';
+  massLoadingFactor: number;
+  rows: LimitRow[];
+  /** Null for a direct-discharge (NPDES) permit: the verdicts of 40 CFR 403.8 do not apply. */
+  significantNoncompliance: SncVerdict[] | null;
+}
+
+export interface PeriodSummary extends PeriodSummaryCore {
+  periodId: string;
+  permitId: string;
+  siteId: string;
+  period: { start: string; end: string; due: string };
+  status: string;
+  compiledAt: string;
+  oil: { collectedLitres: number; shippedLitres: number };
+  openFollowUps: number;
+  labFlagCount: number;
+  cautions: string[];
+}
