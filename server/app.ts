@@ -27,6 +27,8 @@ import { meRoutes } from './features/users/me.routes.js';
 import { usersRoutes } from './features/users/users.routes.js';
 import { apiNotFound, errorHandler } from './middleware/error-handler.js';
 import { sameOrigin } from './middleware/same-origin.js';
+import { mountRouter } from './openapi/mounts.js';
+import { openApiRoutes } from './openapi/openapi.routes.js';
 
 export interface AppDependencies {
   config: Config;
@@ -57,26 +59,27 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
-  api.use('/health', healthRoutes(dataSource));
+  mountRouter(api, '/health', healthRoutes(dataSource));
   api.use(sessionMiddleware(config, sessionPool));
   api.use(sameOrigin(config.appUrl));
   api.use(loadCurrentUser(dataSource));
-  api.use('/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
-  api.use('/me', meRoutes(dataSource));
-  api.use('/users', usersRoutes(dataSource));
-  api.use('/sites/:siteId/discharge-points', dischargePointsRoutes(dataSource));
-  api.use('/sites/:siteId/oil-on-hand', oilOnHandRoutes(dataSource));
-  api.use('/sites', sitesRoutes(dataSource));
-  api.use('/parameters', parametersRoutes(dataSource));
-  api.use('/permits', permitsRoutes(dataSource));
-  api.use('/lab-certificates', labCertificatesRoutes(dataSource));
-  api.use('/equipment', equipmentRoutes(dataSource));
-  api.use('/oil-log', oilLogRoutes(dataSource));
-  api.use('/upkeep-checks', upkeepChecksRoutes(dataSource));
-  api.use('/shipments', shipmentsRoutes(dataSource));
-  api.use('/periods', periodsRoutes(dataSource));
-  api.use('/follow-ups', followUpsRoutes(dataSource));
-  api.use('/trail', trailRoutes(dataSource));
+  mountRouter(api, '/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
+  mountRouter(api, '/me', meRoutes(dataSource));
+  mountRouter(api, '/users', usersRoutes(dataSource));
+  mountRouter(api, '/sites/:siteId/discharge-points', dischargePointsRoutes(dataSource));
+  mountRouter(api, '/sites/:siteId/oil-on-hand', oilOnHandRoutes(dataSource));
+  mountRouter(api, '/sites', sitesRoutes(dataSource));
+  mountRouter(api, '/parameters', parametersRoutes(dataSource));
+  mountRouter(api, '/permits', permitsRoutes(dataSource));
+  mountRouter(api, '/lab-certificates', labCertificatesRoutes(dataSource));
+  mountRouter(api, '/equipment', equipmentRoutes(dataSource));
+  mountRouter(api, '/oil-log', oilLogRoutes(dataSource));
+  mountRouter(api, '/upkeep-checks', upkeepChecksRoutes(dataSource));
+  mountRouter(api, '/shipments', shipmentsRoutes(dataSource));
+  mountRouter(api, '/periods', periodsRoutes(dataSource));
+  mountRouter(api, '/follow-ups', followUpsRoutes(dataSource));
+  mountRouter(api, '/trail', trailRoutes(dataSource));
+  mountRouter(api, '/openapi.json', openApiRoutes(api));
   api.use(apiNotFound);
   app.use('/api', api);
 

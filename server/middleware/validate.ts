@@ -22,8 +22,11 @@ export function fieldsOf(error: z.ZodError, prefix?: string): Record<string, str
  * Validates the parts of a request at the edge. The parsed values are kept in `res.locals`
  * (`body`, `query`, `params`) because Express 5 makes `req.query` read-only.
  */
+/** The schemas a validate() middleware checks, kept on it for the OpenAPI document. */
+export const validatedSchemas = new WeakMap<RequestHandler, Schemas>();
+
 export function validate(schemas: Schemas): RequestHandler {
-  return (req, res, next) => {
+  const handler: RequestHandler = (req, res, next) => {
     const fields: Record<string, string> = {};
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part];
@@ -35,4 +38,6 @@ export function validate(schemas: Schemas): RequestHandler {
     if (Object.keys(fields).length > 0) return next(invalid(fields));
     next();
   };
+  validatedSchemas.set(handler, schemas);
+  return handler;
 }

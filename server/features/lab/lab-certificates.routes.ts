@@ -8,6 +8,7 @@ import { notFound } from '../../errors/app-error.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { jsonPart, singleUpload } from '../../middleware/upload.js';
 import { validate } from '../../middleware/validate.js';
+import { mountRouter } from '../../openapi/mounts.js';
 import { sendStoredFile } from '../files/stored-files.js';
 import { labImportRoutes } from './lab-import.routes.js';
 import { LabCertificatesService } from './lab-certificates.service.js';
@@ -34,7 +35,7 @@ export function labCertificatesRoutes(dataSource: DataSource): Router {
     res.json(await pageResults(dataSource, scope(res, res.locals.query.siteId), res.locals.query));
   });
 
-  router.use('/import', labImportRoutes(dataSource, service));
+  mountRouter(router, '/import', labImportRoutes(dataSource, service));
 
   router.post(
     '/',

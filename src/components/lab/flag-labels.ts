@@ -17,6 +17,12 @@ export const flagLabels: Record<string, string> = {
   'collected-in-future': 'Future collection',
   'unit-not-convertible': 'Unit mismatch',
   'no-limit': 'No limit here',
+  'above-rating': 'Above rating',
+  'negative-balance': 'Negative balance',
+  'above-capacity': 'Above capacity',
+  'spcc-threshold': 'Spill plan threshold',
+  'halogens-presumption': 'Halogens over 1,000 ppm',
+  'off-specification': 'Off-specification fuel',
 };
 
 export const flagLabel = (code: string) => flagLabels[code] ?? code;
