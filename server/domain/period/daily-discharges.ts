@@ -43,12 +43,13 @@ export function dailyDischarges(measurements: Measurement[], policy: NonDetectPo
     list.push(measurement);
     byDay.set(measurement.day, list);
   }
+  const flowByDay = new Map(flows.map((reading) => [`${reading.dischargePointId}|${reading.day}`, reading]));
   return [...byDay.entries()]
     .sort(([a], [b]) => a.localeCompare(b))
     .map(([day, list]) => {
       const values = list.map((m) => (m.qualifier === '<' ? nonDetectValue(m, policy) : m.value));
       const value = values.reduce((sum, v) => sum + v, 0) / values.length;
-      const flow = flows.find((reading) => reading.day === day && reading.dischargePointId === list[0]!.dischargePointId);
+      const flow = flowByDay.get(`${list[0]!.dischargePointId}|${day}`);
       return {
         day,
         value,

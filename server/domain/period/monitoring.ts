@@ -42,14 +42,34 @@ function unitLength(key: string, per: LimitInput['frequencyPer']): number {
  * Samples taken against samples required by the monitoring frequency ("n per day / week /
  * month / quarter"), counted per calendar unit inside the period.
  */
+/** The period's days with their week, month and quarter keys; computed once per period, not per limit. */
+const calendars = new Map<string, Array<Record<LimitInput['frequencyPer'], string>>>();
+function calendarOf(period: { start: string; end: string }) {
+  const key = `${period.start}|${period.end}`;
+  let calendar = calendars.get(key);
+  if (!calendar) {
+    calendar = [];
+    for (let day = DateTime.fromISO(period.start, { zone: 'UTC' }); day.toISODate()! <= period.end; day = day.plus({ days: 1 })) {
+      const iso = day.toISODate()!;
+      calendar.push({ day: iso, week: unitKey(iso, 'week'), month: unitKey(iso, 'month'), quarter: unitKey(iso, 'quarter') });
+    }
+    if (calendars.size > 50) calendars.clear();
+    calendars.set(key, calendar);
+  }
+  return calendar;
+}
+
 export function monitoringCheck(limit: LimitInput, measurements: Measurement[], period: { start: string; end: string; asOf?: string }): MonitoringCheck {
   const units = new Map<string, number>();
   const lastDayOf = new Map<string, string>();
   const daysIn = new Map<string, number>();
-  for (let day = DateTime.fromISO(period.start, { zone: 'UTC' }); day.toISODate()! <= period.end; day = day.plus({ days: 1 })) {
-    const key = unitKey(day.toISODate()!, limit.frequencyPer);
+  const calendar = calendarOf(period);
+  const unitOfDay = new Map<string, string>();
+  for (const entry of calendar) {
+    const key = entry[limit.frequencyPer];
+    unitOfDay.set(entry.day, key);
     units.set(key, 0);
-    lastDayOf.set(key, day.toISODate()!);
+    lastDayOf.set(key, entry.day);
     daysIn.set(key, (daysIn.get(key) ?? 0) + 1);
   }
   // A week or month cut by the period's edge belongs to the neighbouring period's count as well:
@@ -60,8 +80,8 @@ export function monitoringCheck(limit: LimitInput, measurements: Measurement[], 
   // One sample a collection: several results of one sample count once.
   const samples = new Set(measurements.map((m) => `${m.day}|${m.resultId}`));
   for (const key of samples) {
-    const unit = unitKey(key.split('|')[0]!, limit.frequencyPer);
-    if (units.has(unit)) units.set(unit, units.get(unit)! + 1);
+    const unit = unitOfDay.get(key.split('|')[0]!);
+    if (unit !== undefined && units.has(unit)) units.set(unit, units.get(unit)! + 1);
   }
   const missed = [...units.entries()]
     .filter(([, taken]) => taken < limit.frequencyCount)

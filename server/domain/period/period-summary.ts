@@ -14,11 +14,25 @@ const evidence = (measurements: Measurement[]) => ({
   certificateIds: [...new Set(measurements.map((m) => m.certificateId))],
 });
 
-function limitRow(limit: LimitInput, input: PeriodInput): LimitRow {
+type Index = Map<string, Measurement[]>;
+const pairKey = (pointId: string, parameterId: string) => `${pointId}|${parameterId}`;
+
+/** The period's measurements grouped by point and parameter, once, instead of a scan per limit. */
+function indexMeasurements(input: PeriodInput): Index {
+  const index: Index = new Map();
+  for (const m of input.measurements) {
+    if (m.day < input.period.start || m.day > input.period.end) continue;
+    const key = pairKey(m.dischargePointId, m.parameterId);
+    const list = index.get(key);
+    if (list) list.push(m);
+    else index.set(key, [m]);
+  }
+  return index;
+}
+
+function limitRow(limit: LimitInput, input: PeriodInput, index: Index): LimitRow {
   const { permit, period } = input;
-  const inPeriod = input.measurements.filter(
-    (m) => m.dischargePointId === limit.dischargePointId && m.parameterId === limit.parameterId && m.day >= period.start && m.day <= period.end,
-  );
+  const inPeriod = index.get(pairKey(limit.dischargePointId, limit.parameterId)) ?? [];
   const flows = input.flows.filter((f) => f.dischargePointId === limit.dischargePointId);
   const days = dailyDischarges(inPeriod, permit.nonDetectPolicy, flows, permit.massLoadingFactor);
   const monitoring = monitoringCheck(limit, inPeriod, period);
@@ -94,7 +108,8 @@ function limitRow(limit: LimitInput, input: PeriodInput): LimitRow {
  * the same summary, so recompiling is safe and testable without a database.
  */
 export function compilePeriod(input: PeriodInput): PeriodSummaryCore {
-  const rows = input.limits.map((limit) => limitRow(limit, input));
+  const index = indexMeasurements(input);
+  const rows = input.limits.map((limit) => limitRow(limit, input, index));
   let significantNoncompliance: PeriodSummaryCore['significantNoncompliance'] = null;
   if (input.permit.kind === 'pretreatment') {
     const limitsByPoint = new Map<string, LimitInput[]>();
