@@ -11,6 +11,7 @@ import { sessionMiddleware } from './auth/session.js';
 import type { Config } from './config/env.js';
 import { dischargePointsRoutes } from './features/discharge-points/discharge-points.routes.js';
 import { equipmentRoutes } from './features/equipment/equipment.routes.js';
+import { flowReadingsRoutes } from './features/flow-readings/flow-readings.routes.js';
 import { followUpsRoutes } from './features/follow-ups/follow-ups.routes.js';
 import { healthRoutes } from './features/health/health.routes.js';
 import { periodsRoutes } from './features/periods/periods.routes.js';
@@ -76,6 +77,7 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   mountRouter(api, '/oil-log', oilLogRoutes(dataSource));
   mountRouter(api, '/upkeep-checks', upkeepChecksRoutes(dataSource));
   mountRouter(api, '/shipments', shipmentsRoutes(dataSource));
+  mountRouter(api, '/flow-readings', flowReadingsRoutes(dataSource));
   mountRouter(api, '/periods', periodsRoutes(dataSource));
   mountRouter(api, '/follow-ups', followUpsRoutes(dataSource));
   mountRouter(api, '/trail', trailRoutes(dataSource));

@@ -37,6 +37,7 @@ export const routes: RouteRecordRaw[] = [
       { path: 'oil-log/equipment/:id/upkeep', name: 'upkeep-check', component: () => import('@/views/UpkeepCheckView.vue'), props: true, meta: { action: 'oil-log.write', title: 'Upkeep check' } },
       { path: 'shipments', name: 'shipments', component: () => import('@/views/ShipmentsView.vue'), meta: { action: 'shipments.read', title: 'Shipments' } },
       { path: 'periods', name: 'periods', component: () => import('@/views/PeriodsView.vue'), meta: { action: 'periods.read', title: 'Periods' } },
+      { path: 'periods/flow-readings', name: 'flow-readings', component: () => import('@/views/FlowReadingsView.vue'), meta: { action: 'lab.read', title: 'Flow readings' } },
       { path: 'periods/:id', name: 'period', component: () => import('@/views/PeriodView.vue'), props: true, meta: { action: 'periods.read', title: 'Period' } },
       { path: 'follow-ups', name: 'follow-ups', component: () => import('@/views/FollowUpsView.vue'), meta: { action: 'follow-ups.read', title: 'Follow-ups' } },
       { path: 'setup', name: 'setup', component: () => import('@/views/SetupView.vue'), meta: { action: 'sites.read', title: 'Set-up' } },

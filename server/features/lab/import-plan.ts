@@ -3,7 +3,7 @@ import type { CreateLabCertificateRequest } from '../../contracts/lab.js';
 import type { ImportColumn, ImportRowError } from '../../contracts/lab-import.js';
 import { decimalText, isoDate } from '../../contracts/fields.js';
 import { unitNames } from '../../contracts/unit-names.js';
-import type { ImportRow } from './import-rows.js';
+import type { ImportRow } from '../imports/spreadsheet-rows.js';
 
 const blankToNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : value.trim());
 const localTime = z

@@ -12,7 +12,7 @@ import { validate } from '../../middleware/validate.js';
 import { recordTrail } from '../trail/trail.js';
 import { importTemplate } from './import-template.js';
 import { planImport } from './import-plan.js';
-import { csvRows, xlsxRows } from './import-rows.js';
+import { csvRows, xlsxRows } from '../imports/spreadsheet-rows.js';
 import type { LabCertificatesService } from './lab-certificates.service.js';
 
 const TemplateQuery = z.object({ siteId: z.uuid('Not a valid id'), format: z.enum(['xlsx', 'csv']).default('xlsx') });

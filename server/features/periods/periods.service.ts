@@ -2,7 +2,9 @@ import { createHash } from 'node:crypto';
 import { DateTime } from 'luxon';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { CurrentUser } from '../../auth/current-user.js';
+import { daysLeft, manifestDeadlines } from '../../domain/manifest-deadlines.js';
 import { violationObligations } from '../../domain/notification-deadlines.js';
+import { findEquipment } from '../equipment/equipment.repository.js';
 import type { PeriodSummary } from '../../contracts/periods.js';
 import { compilePeriod } from '../../domain/period/period-summary.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
@@ -114,6 +116,7 @@ export async function compileWithin(manager: EntityManager, user: Pick<CurrentUs
         });
       }
     }
+    await openSiteDeadlines(manager, period);
     const [saved] = await manager.query(`UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
       compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`, [periodId, JSON.stringify(summary)]);
     await recordTrail(manager, user, {
@@ -123,3 +126,45 @@ export async function compileWithin(manager: EntityManager, user: Pick<CurrentUs
     return { ...summary, status: saved[0].status };
   }
 }
+
+/**
+ * Deadlines that do not come from the results: signed copies not back (40 CFR 262.42), the
+ * report due within 7 days, and upkeep checks past their interval. Each opens once.
+ */
+async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): Promise<void> {
+  const today = await siteToday(manager, period.siteId);
+  const endOfDay = (day: string) => DateTime.fromISO(day, { zone: period.timeZone }).endOf('day').toJSDate();
+  const shipments = await manager.query(
+    `SELECT h.id, h.document_number, h.shipped_on::text AS shipped_on, s.generator_status, s.manifest_rule
+       FROM shipment h JOIN site s ON s.id = h.site_id WHERE h.site_id = $1 AND h.signed_copy_received_on IS NULL`,
+    [period.siteId],
+  );
+  for (const shipment of shipments) {
+    for (const deadline of manifestDeadlines(shipment.generator_status, shipment.manifest_rule, shipment.shipped_on)) {
+      if (daysLeft(deadline.dueOn, today) > 7) continue;
+      await openFollowUp(manager, {
+        siteId: period.siteId, kind: deadline.step, sourceEntity: 'shipment', sourceId: shipment.id,
+        title: `${stepTitles[deadline.step]}: signed copy of ${shipment.document_number} not back (${deadline.source})`, dueAt: endOfDay(deadline.dueOn),
+      });
+    }
+  }
+  if (period.status !== 'signed' && daysLeft(period.dueOn, today) <= 7 && daysLeft(period.dueOn, today) >= 0) {
+    await openFollowUp(manager, {
+      siteId: period.siteId, kind: 'report-due', sourceEntity: 'reporting-period', sourceId: period.id,
+      title: `Send the periodic report for ${period.startsOn} – ${period.endsOn}`, dueAt: endOfDay(period.dueOn),
+    });
+  }
+  const equipment = await findEquipment(manager, { siteIds: [period.siteId] }, today);
+  for (const item of equipment.filter((e) => e.upkeepOverdue && e.nextCheckDueOn)) {
+    await openFollowUp(manager, {
+      siteId: period.siteId, kind: 'upkeep-due', sourceEntity: 'equipment', sourceId: stableId(item.id, item.nextCheckDueOn!),
+      title: `Upkeep check overdue: ${item.name}`, dueAt: endOfDay(item.nextCheckDueOn!),
+    });
+  }
+}
+
+const stepTitles: Record<string, string> = {
+  'contact-transporter-and-facility': 'Contact the transporter and the receiving facility',
+  'exception-report': 'File an exception report',
+  'copy-with-note-of-non-receipt': 'Send a copy with a note that the signed copy was not received',
+};

@@ -1,14 +1,16 @@
 import { parse } from 'csv-parse';
 import ExcelJS from 'exceljs';
 import { Readable } from 'node:stream';
-import { importColumns, type ImportColumn } from '../../contracts/lab-import.js';
+import { importColumns } from '../../contracts/lab-import.js';
 import { invalid } from '../../errors/app-error.js';
 
-export interface ImportRow {
+export interface ImportRow<K extends string = (typeof importColumns)[number]['key']> {
   /** The spreadsheet's own row number (the header is row 1). */
   row: number;
-  cells: Partial<Record<ImportColumn, string>>;
+  cells: Partial<Record<K, string>>;
 }
+
+type Columns = ReadonlyArray<{ key: string }>;
 
 /** "collected_at [YYYY-MM-DD HH:mm, site local time]" → "collected_at". */
 const headerKey = (header: string) => header.trim().split(/\s*\[/)[0]!.trim().toLowerCase();
@@ -25,31 +27,31 @@ function cellText(value: unknown): string {
   return String(value).trim();
 }
 
-function mapHeader(headers: string[]): Map<number, ImportColumn> {
-  const known = new Set<string>(importColumns.map((column) => column.key));
-  const map = new Map<number, ImportColumn>();
+function mapHeader(headers: string[], columns: Columns): Map<number, string> {
+  const known = new Set<string>(columns.map((column) => column.key));
+  const map = new Map<number, string>();
   headers.forEach((header, index) => {
     const key = headerKey(header);
-    if (known.has(key)) map.set(index, key as ImportColumn);
+    if (known.has(key)) map.set(index, key);
   });
-  const missing = importColumns.map((c) => c.key).filter((key) => ![...map.values()].includes(key));
+  const missing = columns.map((c) => c.key).filter((key) => ![...map.values()].includes(key));
   if (missing.length > 0) throw invalid({ file: `Missing columns: ${missing.join(', ')}` }, 'The header row does not match the template');
   return map;
 }
 
 /** Rows of an XLSX file, read with exceljs's streaming reader (first worksheet only). */
-export async function* xlsxRows(buffer: Buffer): AsyncGenerator<ImportRow> {
+export async function* xlsxRows<K extends string>(buffer: Buffer, columns: Columns = importColumns): AsyncGenerator<ImportRow<K>> {
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(buffer), { sharedStrings: 'cache', worksheets: 'emit', hyperlinks: 'ignore', styles: 'cache' });
-  let header: Map<number, ImportColumn> | null = null;
+  let header: Map<number, string> | null = null;
   for await (const worksheet of reader) {
     for await (const row of worksheet) {
       const values = (row.values as unknown[]).slice(1).map(cellText);
       if (!header) {
-        header = mapHeader(values);
+        header = mapHeader(values, columns);
         continue;
       }
       if (values.every((value) => value === '')) continue;
-      yield { row: row.number, cells: Object.fromEntries([...header].map(([index, key]) => [key, values[index] ?? ''])) };
+      yield { row: row.number, cells: Object.fromEntries([...header].map(([index, key]) => [key, values[index] ?? ''])) as Partial<Record<K, string>> };
     }
     break;
   }
@@ -57,18 +59,18 @@ export async function* xlsxRows(buffer: Buffer): AsyncGenerator<ImportRow> {
 }
 
 /** Rows of a CSV file (comma separated, UTF-8, optional BOM), streamed through csv-parse. */
-export async function* csvRows(buffer: Buffer): AsyncGenerator<ImportRow> {
+export async function* csvRows<K extends string>(buffer: Buffer, columns: Columns = importColumns): AsyncGenerator<ImportRow<K>> {
   const parser = Readable.from(buffer).pipe(parse({ bom: true, relax_column_count: true, skip_empty_lines: true, trim: true }));
-  let header: Map<number, ImportColumn> | null = null;
+  let header: Map<number, string> | null = null;
   let rowNumber = 0;
   try {
     for await (const record of parser as AsyncIterable<string[]>) {
       rowNumber += 1;
       if (!header) {
-        header = mapHeader(record);
+        header = mapHeader(record, columns);
         continue;
       }
-      yield { row: rowNumber, cells: Object.fromEntries([...header].map(([index, key]) => [key, record[index] ?? ''])) };
+      yield { row: rowNumber, cells: Object.fromEntries([...header].map(([index, key]) => [key, record[index] ?? ''])) as Partial<Record<K, string>> };
     }
   } catch (error) {
     if ((error as { code?: string }).code?.startsWith('CSV_')) throw invalid({ file: (error as Error).message }, 'The CSV file cannot be read');
