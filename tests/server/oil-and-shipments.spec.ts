@@ -162,3 +162,39 @@ describe('oil log, upkeep and shipments', () => {
     });
   });
 });
+
+describe('photos and scans get the same file checks as certificates', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+  });
+  afterAll(() => t.close());
+
+  it('refuses a text file as a shipment scan and a PDF as an upkeep photo, storing nothing', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const [shipment] = await t.dataSource.query('SELECT id FROM shipment WHERE site_id = $1 LIMIT 1', [ids.north]);
+    const before = await t.count('stored_file');
+    const scan = await request(t.app).post(`/api/shipments/${shipment.id}/files`).set('cookie', coordinator)
+      .attach('file', Buffer.from('not a scan at all'), 'manifest.pdf').expect(415);
+    expect(scan.body.error.fields).toHaveProperty('file');
+    const photo = await request(t.app).post('/api/upkeep-checks/photos').set('cookie', coordinator)
+      .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), 'wiper.jpg').expect(415);
+    expect(photo.body.error.fields).toHaveProperty('file');
+    await request(t.app).post('/api/upkeep-checks/photos').set('cookie', coordinator)
+      .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), '../../wiper.jpg', ).expect((res) => expect([400, 415]).toContain(res.status));
+    expect(await t.count('stored_file')).toBe(before);
+  });
+
+  it('stores a real PNG photo and a PDF scan with their SHA-256', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
+    const photo = await request(t.app).post('/api/upkeep-checks/photos').set('cookie', coordinator).attach('file', png, 'wiper.png').expect(201);
+    expect(photo.body.sha256).toMatch(/^[0-9a-f]{64}$/);
+    const [shipment] = await t.dataSource.query('SELECT id FROM shipment WHERE site_id = $1 AND signed_copy_received_on IS NULL LIMIT 1', [ids.north]);
+    const scanned = await request(t.app).post(`/api/shipments/${shipment.id}/files`).set('cookie', coordinator)
+      .attach('file', Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n'), 'manifest.pdf').expect(201);
+    expect(scanned.body.files.length).toBeGreaterThan(0);
+  });
+});
