@@ -62,5 +62,7 @@ export interface PeriodSummary extends PeriodSummaryCore {
   oil: { collectedLitres: number; shippedLitres: number };
   openFollowUps: number;
   labFlagCount: number;
+  /** When the periodic report was sent against its due date, and whether lateness is significant. */
+  reportTimeliness: { dueOn: string; submittedOn: string | null; daysLate: number; lateReportDays: number; significantNoncompliance: boolean | null };
   cautions: string[];
 }

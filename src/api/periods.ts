@@ -24,6 +24,7 @@ export interface FollowUp {
   status: 'open' | 'done' | 'done-late';
   closedAt: string | null;
   closingNote: string | null;
+  hasClosingFile: boolean;
 }
 
 export const periodsApi = {

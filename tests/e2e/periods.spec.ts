@@ -38,7 +38,7 @@ describe('periods and follow-ups in a browser', () => {
     await page.locator('[data-test="caution"]').waitFor();
     expect(await page.locator('[data-test="caution"]').textContent()).toContain('the control authority decide');
     await page.getByText('Over limit').first().waitFor();
-    await page.getByText('Significant noncompliance').waitFor();
+    await page.getByText('Significant noncompliance', { exact: true }).waitFor();
     expect(await page.getByRole('cell', { name: 'Met', exact: true }).count()).toBeGreaterThan(0);
     await page.click('[data-test="compile"]');
     await page.getByText('Compiled and saved').waitFor();

@@ -97,3 +97,38 @@ describe('periods, summaries and follow-ups', () => {
     await request(t.app).post(`/api/follow-ups/${someFollowUp.id}/close`).set('cookie', auditor).send({ note: 'Not mine to close' }).expect(403);
   });
 });
+
+describe('report submission and closing with a file', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+  });
+  afterAll(() => t.close());
+
+  it('records when a report was sent and judges its lateness by the permit setting', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const [period] = await t.dataSource.query(
+      `SELECT rp.id, rp.due_on::text AS due_on, rp.ends_on::text AS ends_on FROM reporting_period rp WHERE rp.permit_id = $1 AND rp.due_on < now() - interval '60 days' ORDER BY rp.starts_on LIMIT 1`,
+      [ids.northPermit],
+    );
+    const due = new Date(`${period.due_on}T00:00:00Z`);
+    const late = new Date(due.getTime() + 46 * 86_400_000).toISOString().slice(0, 10);
+    const summary = await request(t.app).put(`/api/periods/${period.id}/submission`).set('cookie', coordinator).send({ submittedOn: late }).expect(200);
+    expect(summary.body.reportTimeliness).toMatchObject({ submittedOn: late, daysLate: 46, lateReportDays: 45, significantNoncompliance: true });
+    const refused = await request(t.app).put(`/api/periods/${period.id}/submission`).set('cookie', coordinator).send({ submittedOn: '2000-01-01' }).expect(400);
+    expect(refused.body.error.fields).toHaveProperty('submittedOn');
+  });
+
+  it('closes a follow-up with a note and a PDF of the notice sent', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const [open] = await t.dataSource.query(`SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' LIMIT 1`, [ids.north]);
+    const pdf = Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n');
+    const closed = await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator)
+      .field('note', 'Notice e-mailed, copy attached').attach('file', pdf, 'notice.pdf').expect(200);
+    expect(closed.body.hasClosingFile).toBe(true);
+    const file = await request(t.app).get(`/api/follow-ups/${open.id}/file`).set('cookie', coordinator).expect(200);
+    expect(file.headers['content-type']).toBe('application/pdf');
+  });
+});

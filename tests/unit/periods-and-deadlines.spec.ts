@@ -34,3 +34,16 @@ describe('reporting periods', () => {
     expect(reportingPeriods({ effectiveFrom: '2026-01-01', effectiveTo: null, reportingFrequency: 'monthly', reportDueDays: 15 }, '2026-02-10').map((p) => p.dueOn)).toEqual(['2026-02-15', '2026-03-15']);
   });
 });
+
+describe('late reports (40 CFR 403.8(f)(2)(viii)(F); 45 days from memory, the permit setting decides)', async () => {
+  const { reportTimeliness } = await import('../../server/domain/report-timeliness.js');
+  it('is significant only more than the threshold after the due date', () => {
+    expect(reportTimeliness('2026-01-30', '2026-03-16', '2026-06-01', 45, 'pretreatment')).toMatchObject({ daysLate: 45, significantNoncompliance: false });
+    expect(reportTimeliness('2026-01-30', '2026-03-17', '2026-06-01', 45, 'pretreatment')).toMatchObject({ daysLate: 46, significantNoncompliance: true });
+    expect(reportTimeliness('2026-01-30', '2026-03-02', '2026-06-01', 30, 'pretreatment')).toMatchObject({ daysLate: 31, significantNoncompliance: true });
+  });
+  it('counts an unsent report up to today, and gives no verdict for a direct-discharge permit', () => {
+    expect(reportTimeliness('2026-01-30', null, '2026-02-09', 45, 'pretreatment')).toMatchObject({ daysLate: 10, significantNoncompliance: false });
+    expect(reportTimeliness('2026-01-30', '2026-01-20', '2026-06-01', 45, 'npdes')).toMatchObject({ daysLate: 0, significantNoncompliance: null });
+  });
+});

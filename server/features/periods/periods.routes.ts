@@ -5,10 +5,15 @@ import { currentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { validate } from '../../middleware/validate.js';
+import { isoDate } from '../../contracts/fields.js';
+import { invalid } from '../../errors/app-error.js';
+import { siteToday } from '../site-today.js';
+import { recordTrail } from '../trail/trail.js';
 import { compileAndSave, ensurePeriods, findPeriod, listPeriods, summarise } from './periods.service.js';
 
 const ListQuery = z.object({ siteId: z.uuid('Not a valid id').optional(), permitId: z.uuid('Not a valid id').optional() });
 const IdParams = z.object({ id: z.uuid('Not a valid id') });
+const SubmissionRequest = z.object({ submittedOn: isoDate });
 
 export function periodsRoutes(dataSource: DataSource): Router {
   const router = Router();
@@ -33,6 +38,24 @@ export function periodsRoutes(dataSource: DataSource): Router {
     const period = await findPeriod(dataSource, res.locals.params.id);
     assertSiteVisible(currentUser(res), period?.siteId, 'Period');
     res.json(await compileAndSave(dataSource, currentUser(res), period!.id));
+  });
+
+  // Records when the periodic report went to the authority (signing and packs come later).
+  router.put('/:id/submission', requirePermission('periods.compile'), validate({ params: IdParams, body: SubmissionRequest }), async (_req, res) => {
+    const user = currentUser(res);
+    const period = await findPeriod(dataSource, res.locals.params.id);
+    assertSiteVisible(user, period?.siteId, 'Period');
+    await dataSource.transaction(async (manager) => {
+      const [before] = await manager.query('SELECT submitted_on::text FROM reporting_period WHERE id = $1', [period!.id]);
+      if (res.locals.body.submittedOn < period!.endsOn) throw invalid({ submittedOn: 'Before the period ended' });
+      if (res.locals.body.submittedOn > (await siteToday(manager, period!.siteId))) throw invalid({ submittedOn: 'Cannot be in the future' });
+      await manager.query('UPDATE reporting_period SET submitted_on = $2 WHERE id = $1', [period!.id, res.locals.body.submittedOn]);
+      await recordTrail(manager, user, {
+        action: 'record-submission', entity: 'reporting-period', entityId: period!.id, siteId: period!.siteId,
+        before: { submittedOn: before.submitted_on }, after: res.locals.body,
+      });
+    });
+    res.json(await summarise(dataSource, (await findPeriod(dataSource, period!.id))!));
   });
 
   return router;

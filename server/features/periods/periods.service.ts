@@ -7,6 +7,7 @@ import { violationObligations } from '../../domain/notification-deadlines.js';
 import { findEquipment } from '../equipment/equipment.repository.js';
 import type { PeriodSummary } from '../../contracts/periods.js';
 import { compilePeriod } from '../../domain/period/period-summary.js';
+import { reportTimeliness } from '../../domain/report-timeliness.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
 import { notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
@@ -65,6 +66,9 @@ export async function listPeriods(db: Db, siteIds: string[], permitId?: string) 
 /** The summary of one period, compiled now from the records (nothing is written). */
 export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
   const core = compilePeriod(await loadPeriodInput(db, period));
+  const [permit] = await db.query('SELECT kind, late_report_days FROM permit WHERE id = $1', [period.permitId]);
+  const [{ submitted_on: submittedOn }] = await db.query('SELECT submitted_on::text FROM reporting_period WHERE id = $1', [period.id]);
+  const timeliness = reportTimeliness(period.dueOn, submittedOn, await siteToday(db, period.siteId), permit.late_report_days, permit.kind);
   const [oil] = await db.query(
     `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
             (SELECT coalesce(sum(quantity_litres), 0) FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3) AS shipped,
@@ -77,7 +81,7 @@ export async function summarise(db: Db, period: PeriodRecord, now = new Date()):
     periodId: period.id, permitId: period.permitId, siteId: period.siteId, status: period.status,
     period: { start: period.startsOn, end: period.endsOn, due: period.dueOn }, compiledAt: now.toISOString(), ...core,
     oil: { collectedLitres: Number(oil.collected), shippedLitres: Number(oil.shipped) },
-    openFollowUps: oil.open_follow_ups, labFlagCount: oil.lab_flags, cautions: summaryCautions,
+    openFollowUps: oil.open_follow_ups, labFlagCount: oil.lab_flags, reportTimeliness: timeliness, cautions: summaryCautions,
   };
 }
 
