@@ -14,11 +14,16 @@ const vitePort = Number(process.env.VITE_PORT ?? 4283);
 const appUrl = dev ? `http://127.0.0.1:${vitePort}` : config.appUrl;
 
 const database = await localDatabase(projectDir, 'decant');
-await prepareDatabase(database.url, { seed: true });
-
-if (!dev) {
-  console.log('Building the client…');
-  run(resolve(projectDir, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { cwd: projectDir });
+try {
+  await prepareDatabase(database.url, { seed: true });
+  if (!dev) {
+    console.log('Building the client…');
+    run(resolve(projectDir, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { cwd: projectDir });
+  }
+} catch (error) {
+  // Leave nothing running behind a failed start.
+  if (database.cluster?.startedHere) database.cluster.stop();
+  throw error;
 }
 
 const shared = { DATABASE_URL: database.url, APP_URL: appUrl, NODE_ENV: dev ? 'development' : 'production' };

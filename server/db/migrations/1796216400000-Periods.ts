@@ -23,17 +23,14 @@ export class Periods1796216400000 implements MigrationInterface {
       due_on date NOT NULL,
       status varchar(10) NOT NULL DEFAULT 'open' CHECK (status IN ('open', 'compiled', 'signed', 'amended')),
       compiled_at timestamptz,
-      submitted_on date,
       summary jsonb,
       UNIQUE (permit_id, starts_on),
       CHECK (ends_on >= starts_on)
     )`);
     await q.query(`CREATE INDEX "IDX_lab_result_sample_parameter" ON lab_result (sample_id, parameter_id)`);
-    await q.query(`ALTER TABLE follow_up ADD COLUMN closing_file_id uuid REFERENCES stored_file(id)`);
   }
 
   async down(q: QueryRunner): Promise<void> {
-    await q.query('ALTER TABLE follow_up DROP COLUMN closing_file_id');
     await q.query('DROP INDEX "IDX_lab_result_sample_parameter"');
     await q.query('DROP TABLE reporting_period');
     await q.query('DROP TABLE flow_reading');
