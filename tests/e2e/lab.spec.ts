@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { tmpdir } from 'node:os';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoPassword } from '../../server/db/seed/demo-scenario.js';
-import { openBrowser, screenshot } from '../helpers/browser.js';
+import { openBrowser, screenshot, signInAs } from '../helpers/browser.js';
 import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 import { tinyPdf } from '../fixtures/lab.js';
 
@@ -19,14 +19,7 @@ describe('the Lab area in a browser', () => {
     await stack?.close();
   });
 
-  async function signIn(email: string): Promise<void> {
-    const { page } = browser;
-    await page.goto(`${stack.appUrl}/sign-in`);
-    await page.getByText(email, { exact: true }).click();
-    await page.fill('#password', demoPassword);
-    await page.click('button[type=submit]');
-    await page.waitForURL(`${stack.appUrl}/overview`);
-  }
+  const signIn = (email: string) => signInAs(browser.page, stack.appUrl, email, demoPassword);
 
   it('lets the coordinator upload a certificate whose result was analysed 30 days late, and shows the holding-time flag', async () => {
     const { page } = browser;
@@ -54,7 +47,6 @@ describe('the Lab area in a browser', () => {
 
   it('lets the auditor read the Lab area without any way to change it', async () => {
     const { page } = browser;
-    await page.context().clearCookies();
     await signIn('auditor@decant.test');
     await page.goto(`${stack.appUrl}/lab`);
     await page.locator('tbody tr').first().waitFor();

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoPassword } from '../../server/db/seed/demo-scenario.js';
-import { openBrowser, screenshot } from '../helpers/browser.js';
+import { openBrowser, screenshot, signInAs } from '../helpers/browser.js';
 import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 
 describe('the oil log on a phone, and shipments', () => {
@@ -15,14 +15,7 @@ describe('the oil log on a phone, and shipments', () => {
     await stack?.close();
   });
 
-  async function signIn(email: string): Promise<void> {
-    const { page } = phone;
-    await page.context().clearCookies();
-    await page.goto(`${stack.appUrl}/`);
-    await page.getByText(email, { exact: true }).click();
-    await page.fill('#password', demoPassword);
-    await page.click('button[type=submit]');
-  }
+  const signIn = (email: string) => signInAs(phone.page, stack.appUrl, email, demoPassword);
 
   it('lands the operator on the oil log and saves an entry in one screen', async () => {
     const { page } = phone;

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoPassword } from '../../server/db/seed/demo-scenario.js';
-import { openBrowser, screenshot } from '../helpers/browser.js';
+import { openBrowser, screenshot, signInAs } from '../helpers/browser.js';
 import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 
 describe('periods and follow-ups in a browser', () => {
@@ -15,17 +15,7 @@ describe('periods and follow-ups in a browser', () => {
     await stack?.close();
   });
 
-  async function signIn(email: string): Promise<void> {
-    const { page } = browser;
-    await page.context().clearCookies();
-    await page.goto(`${stack.appUrl}/sign-in`);
-    await page.getByText(email, { exact: true }).click();
-    await page.fill('#password', demoPassword);
-    await page.click('button[type=submit]');
-    await page.waitForURL(`${stack.appUrl}/overview`);
-    await page.locator('.v-app-bar .v-select').click();
-    await page.getByRole('option', { name: 'Tamsin Creek Works' }).click();
-  }
+  const signIn = (email: string) => signInAs(browser.page, stack.appUrl, email, demoPassword, 'Tamsin Creek Works');
 
   it('shows the coordinator a period with its exceedances, verdicts and the caution, and compiles it', async () => {
     const { page } = browser;

@@ -30,3 +30,17 @@ export async function screenshot(page: Page, name: string): Promise<void> {
   mkdirSync(screenshotDir, { recursive: true });
   await page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
 }
+
+/** Signs a demo account in through the identity provider's own login page, as a person would. */
+export async function signInAs(page: Page, appUrl: string, email: string, password: string, site?: string): Promise<void> {
+  await page.context().clearCookies();
+  await page.goto(`${appUrl}/sign-in`);
+  await page.getByText(email, { exact: true }).click();
+  await page.fill('#password', password);
+  await page.click('button[type=submit]');
+  await page.waitForURL((url) => url.origin === new URL(appUrl).origin && !url.pathname.startsWith('/sign-in') && !url.pathname.startsWith('/api'));
+  if (site) {
+    await page.locator('.v-app-bar .v-select').click();
+    await page.getByRole('option', { name: site }).click();
+  }
+}
