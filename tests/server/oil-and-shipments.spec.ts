@@ -153,6 +153,17 @@ describe('oil log, upkeep and shipments', () => {
   });
 
   describe('oil on hand', () => {
+    it('takes an opening balance from the coordinator only, and counts from the day after it', async () => {
+      const operatorCookie = operator;
+      await request(t.app).put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`).set('cookie', operatorCookie).send({ volume: 10, unit: 'gal', on: today() }).expect(403);
+      await request(t.app).put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`).set('cookie', coordinator).send({ volume: 10, unit: 'gal', on: today() }).expect(204);
+      const balance = await request(t.app).get(`/api/sites/${ids.east}/oil-on-hand`).set('cookie', coordinator).expect(200);
+      expect(balance.body.openingLitres).toBeCloseTo(37.85411784, 6);
+      expect(balance.body.collectedLitres).toBe(0);
+      const refused = await request(t.app).put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`).set('cookie', coordinator).send({ volume: -5, unit: 'gal', on: today() }).expect(400);
+      expect(refused.body.error.fields).toHaveProperty('volume');
+    });
+
     it('is opening balance plus collected minus shipped, with the 112.1 caution above 1,320 gal of storage', async () => {
       const response = await request(t.app).get(`/api/sites/${ids.north}/oil-on-hand`).set('cookie', operator).expect(200);
       const { openingLitres, collectedLitres, shippedLitres, onHandLitres, flags } = response.body;
