@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import type { LimitRow } from '../../server/contracts/periods.js';
+import FlagChips from '../../src/components/lab/FlagChips.vue';
+import LimitStatus from '../../src/components/periods/LimitStatus.vue';
+import { mountWithApp } from './mount';
+
+// The product brief: status is never colour alone; every state also has a word and an icon.
+const row = (over: Partial<LimitRow>): LimitRow => ({
+  limitId: 'L', dischargePointId: 'P', pointCode: 'OF-001', parameterId: 'X', parameter: 'Oil and grease', statistic: 'daily-maximum', unit: 'mg/L',
+  limitValue: 100, computedValue: 40, exceeded: false, samplesTaken: 2, samplesRequired: 2, missedMonitoring: [], dailyValues: [], monthlyValues: [], exceedances: [], ...over,
+});
+
+describe('status words and icons', () => {
+  it.each([
+    [{ computedValue: 40 }, 'Within limit'],
+    [{ computedValue: 90 }, 'Near limit'],
+    [{ computedValue: 120, exceeded: true }, 'Over limit'],
+    [{ computedValue: '<ML' as const }, 'Non-detect'],
+    [{ computedValue: null }, 'Missing'],
+  ])('shows %j as "%s" with an icon', (over, word) => {
+    const wrapper = mountWithApp(LimitStatus, { props: { row: row(over) } });
+    expect(wrapper.text()).toContain(word);
+    expect(wrapper.find('.v-icon').exists()).toBe(true);
+    wrapper.unmount();
+  });
+
+  it('gives every finding a word and an icon, not only a colour', () => {
+    const wrapper = mountWithApp(FlagChips, {
+      props: { flags: [{ code: 'holding-time', severity: 'error', message: 'Analysed late', source: 'EPA Method 1664 Rev. B §8.5' }] },
+    });
+    expect(wrapper.text()).toContain('Holding time');
+    expect(wrapper.find('[data-flag="holding-time"] .v-icon').exists()).toBe(true);
+    wrapper.unmount();
+  });
+});
