@@ -4,7 +4,6 @@ import request from 'supertest';
 import { importColumns } from '../../server/contracts/lab-import.js';
 import { prepareDatabase } from '../../server/db/prepare.js';
 import { localDatabase } from '../../server/scripts/local-database.js';
-import { startTestApp } from '../helpers/test-app.js';
 
 // `npm run bench`: imports 10,000 lab result rows (CSV and XLSX) against a scratch database and
 // prints time and memory. A measurement, not a test: nothing here passes or fails on speed.
@@ -13,6 +12,8 @@ const projectDir = resolve(import.meta.dirname, '../..');
 const database = await localDatabase(projectDir, 'decant_bench');
 process.env.DATABASE_URL = database.url;
 await prepareDatabase(database.url, { seed: true, reset: true });
+// Imported only now: the test helpers read DATABASE_URL when they load.
+const { startTestApp } = await import('../helpers/test-app.js');
 const t = await startTestApp();
 const [north] = await t.dataSource.query(`SELECT id FROM site WHERE name = 'Tamsin Creek Works'`);
 const cookie = await t.sessionFor('coordinator@decant.test');
@@ -43,6 +44,8 @@ async function measure(label: string, file: Buffer, name: string): Promise<void>
       .field('siteId', north.id).field('commit', String(commit)).attach('file', file, name);
     const seconds = (performance.now() - started) / 1000;
     clearInterval(timer);
+    const firstError = (response.body.errors ?? response.body.report?.errors ?? [])[0];
+    if (firstError) console.log("first error:", JSON.stringify(firstError));
     console.log(
       `${label} ${commit ? 'commit ' : 'dry run'}: ${response.status}, ${response.body.rows ?? response.body.report?.rows} rows, ` +
         `${response.body.errors?.length ?? response.body.report?.errors.length} errors, ${seconds.toFixed(2)} s, ` +

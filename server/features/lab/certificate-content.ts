@@ -68,14 +68,25 @@ export async function writeCertificateContent(
       [certificateId, sample.dischargePointId, localToInstant(sample.collectedAt, site.timeZone), sample.collectedAt.slice(0, 10),
         sample.collectedBy, sample.sampleType, sample.preservationConfirmed, sample.temperatureOnReceiptC, sample.chainOfCustodyNumber],
     );
-    for (const result of sample.results) {
-      await manager.query(
-        `INSERT INTO lab_result (sample_id, parameter_id, method, qualifier, value_reported, value, mdl, ml, unit, analysed_at, qc_batch_id)
-         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11)`,
-        [row.id, result.parameterId, result.method, result.qualifier, result.value, Number(result.value), result.mdl, result.ml,
-          result.unit, result.analysedAt ? localToInstant(result.analysedAt, site.timeZone) : null,
-          result.qcBatchCode ? batchIds.get(result.qcBatchCode) : null],
-      );
-    }
+    // A sample's results in one statement: imports write thousands of them.
+    const results = sample.results;
+    await manager.query(
+      `INSERT INTO lab_result (sample_id, parameter_id, method, qualifier, value_reported, value, mdl, ml, unit, analysed_at, qc_batch_id)
+       SELECT $1, * FROM unnest($2::uuid[], $3::text[], $4::text[], $5::text[], $6::numeric[], $7::numeric[], $8::numeric[], $9::text[],
+         $10::timestamptz[], $11::uuid[])`,
+      [
+        row.id,
+        results.map((r) => r.parameterId),
+        results.map((r) => r.method),
+        results.map((r) => r.qualifier),
+        results.map((r) => r.value),
+        results.map((r) => Number(r.value)),
+        results.map((r) => r.mdl),
+        results.map((r) => r.ml),
+        results.map((r) => r.unit),
+        results.map((r) => (r.analysedAt ? localToInstant(r.analysedAt, site.timeZone) : null)),
+        results.map((r) => (r.qcBatchCode ? (batchIds.get(r.qcBatchCode) ?? null) : null)),
+      ],
+    );
   }
 }

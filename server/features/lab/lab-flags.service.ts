@@ -57,6 +57,8 @@ export async function computeCertificateFlags(manager: EntityManager, certificat
     [certificateId],
   );
   const all: Flag[] = [...qcFlags.values()].flat();
+  const sampleUpdates: Array<[string, string]> = [];
+  const resultUpdates: Array<[string, string, string]> = [];
   for (const sample of samples) {
     const facts: SampleFacts = {
       collectedAt: sample.collected_at,
@@ -65,7 +67,7 @@ export async function computeCertificateFlags(manager: EntityManager, certificat
       temperatureOnReceiptC: sample.temperature_on_receipt_c === null ? null : Number(sample.temperature_on_receipt_c),
     };
     const sampleFlags = checkSample(facts, now);
-    await manager.query('UPDATE lab_sample SET flags = $2 WHERE id = $1', [sample.id, JSON.stringify(sampleFlags)]);
+    sampleUpdates.push([sample.id, JSON.stringify(sampleFlags)]);
     all.push(...sampleFlags);
 
     const limitsByParameter = await limitsInForce(manager, sample.discharge_point_id, sample.collected_on);
@@ -88,14 +90,20 @@ export async function computeCertificateFlags(manager: EntityManager, certificat
         ),
         ...(result.qc_batch_id ? (qcFlags.get(result.qc_batch_id) ?? []) : []),
       ];
-      await manager.query('UPDATE lab_result SET flags = $2, flag_codes = $3 WHERE id = $1', [
-        result.id,
-        JSON.stringify(flags),
-        [...new Set(flags.map((flag) => flag.code))],
-      ]);
+      resultUpdates.push([result.id, JSON.stringify(flags), [...new Set(flags.map((flag) => flag.code))].join(',')]);
       all.push(...flags);
     }
   }
+  // One statement each for samples and results, however many a certificate has.
+  await manager.query(
+    `UPDATE lab_sample s SET flags = v.flags::jsonb FROM unnest($1::uuid[], $2::text[]) AS v(id, flags) WHERE s.id = v.id`,
+    [sampleUpdates.map((u) => u[0]), sampleUpdates.map((u) => u[1])],
+  );
+  await manager.query(
+    `UPDATE lab_result r SET flags = v.flags::jsonb, flag_codes = CASE WHEN v.codes = '' THEN '{}' ELSE string_to_array(v.codes, ',') END
+       FROM unnest($1::uuid[], $2::text[], $3::text[]) AS v(id, flags, codes) WHERE r.id = v.id`,
+    [resultUpdates.map((u) => u[0]), resultUpdates.map((u) => u[1]), resultUpdates.map((u) => u[2])],
+  );
   await manager.query('UPDATE lab_certificate SET flags = $2 WHERE id = $1', [certificateId, JSON.stringify(summarise(all))]);
 }
 
