@@ -73,8 +73,9 @@ export async function summarise(db: Db, period: PeriodRecord, now = new Date()):
     `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
             (SELECT coalesce(sum(quantity_litres), 0) FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3) AS shipped,
             (SELECT count(*)::int FROM follow_up WHERE site_id = $1 AND status = 'open') AS open_follow_ups,
-            (SELECT count(*)::int FROM lab_result r JOIN lab_sample s ON s.id = r.sample_id JOIN lab_certificate c ON c.id = s.certificate_id
-              WHERE c.site_id = $1 AND s.collected_on BETWEEN $2 AND $3 AND jsonb_array_length(r.flags) > 0) AS lab_flags`,
+            (SELECT count(*)::int FROM lab_result r JOIN lab_sample s ON s.id = r.sample_id
+              WHERE s.discharge_point_id IN (SELECT id FROM discharge_point WHERE site_id = $1)
+                AND s.collected_on BETWEEN $2 AND $3 AND r.flag_codes <> '{}') AS lab_flags`,
     [period.siteId, period.startsOn, period.endsOn],
   );
   return {
