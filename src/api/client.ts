@@ -7,6 +7,8 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly fields: Record<string, string> = {},
+    /** The whole answer, for routes that send more than the error (an import's row report). */
+    readonly body: unknown = null,
   ) {
     super(message);
   }
@@ -47,6 +49,31 @@ export async function request<T>(method: string, path: string, options: { query?
     throw new ApiError(response.status, error?.code ?? 'http_error', error?.message ?? response.statusText, error?.fields);
   }
   return payload as T;
+}
+
+export type Parts = Record<string, string | Blob | null | undefined>;
+
+/**
+ * Sends a multipart form (files and fields) through XHR, which reports upload progress where
+ * fetch cannot; answers and errors take the same shape as every other call.
+ */
+export function upload<T>(method: 'POST' | 'PUT', path: string, parts: Parts, onProgress?: (fraction: number) => void): Promise<T> {
+  const form = new FormData();
+  for (const [name, value] of Object.entries(parts)) if (value !== null && value !== undefined) form.set(name, value);
+  return new Promise((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open(method, `/api${path}`);
+    xhr.responseType = 'json';
+    xhr.upload.onprogress = (event) => event.lengthComputable && onProgress?.(event.loaded / event.total);
+    xhr.onload = () => {
+      if (xhr.status >= 200 && xhr.status < 300) return resolve(xhr.response as T);
+      if (xhr.status === 401) onUnauthenticated();
+      const error = (xhr.response as ErrorBody | null)?.error;
+      reject(new ApiError(xhr.status, error?.code ?? 'http_error', error?.message ?? xhr.statusText, error?.fields, xhr.response));
+    };
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload did not reach the server'));
+    xhr.send(form);
+  });
 }
 
 export const api = {

@@ -32,5 +32,4 @@ export const periodsApi = {
   summary: (id: string) => api.get<PeriodSummary>(`/periods/${id}/summary`),
   compile: (id: string) => api.post<PeriodSummary>(`/periods/${id}/compile`),
   followUps: (query: Query) => api.get<Page<FollowUp>>('/follow-ups', query),
-  closeFollowUp: (id: string, note: string) => api.post<FollowUp>(`/follow-ups/${id}/close`, { note }),
 };

@@ -1,4 +1,3 @@
-import { fileTypeFromBuffer } from 'file-type';
 import { Router } from 'express';
 import type { DataSource, EntityManager } from 'typeorm';
 import { z } from 'zod';
@@ -6,11 +5,11 @@ import { isoDate } from '../../contracts/fields.js';
 import { PageQuery } from '../../contracts/paging.js';
 import { currentUser, type CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed } from '../../auth/site-access.js';
-import { AppError, invalid } from '../../errors/app-error.js';
+import { invalid } from '../../errors/app-error.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { singleUpload } from '../../middleware/upload.js';
 import { validate } from '../../middleware/validate.js';
-import { csvRows, xlsxRows } from '../imports/spreadsheet-rows.js';
+import { rowErrorsBody, spreadsheetRows } from '../imports/spreadsheet-rows.js';
 import { siteToday } from '../site-today.js';
 import { recordTrail } from '../trail/trail.js';
 
@@ -24,19 +23,18 @@ const FlowReadingRequest = z.object({
 });
 const ListQuery = PageQuery.extend({ siteId: z.uuid('Not a valid id'), from: isoDate.optional(), to: isoDate.optional() });
 const ImportFields = z.object({ siteId: z.uuid('Not a valid id'), commit: z.enum(['true', 'false']).default('false') });
-const xlsxType = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 type Reading = z.infer<typeof FlowReadingRequest>;
 
 /** One reading a point a day: a second reading for the same day replaces the first, in the trail. */
 async function upsertReading(manager: EntityManager, user: CurrentUser, siteId: string, reading: Reading): Promise<void> {
   const [before] = await manager.query('SELECT value, unit FROM flow_reading WHERE discharge_point_id = $1 AND day = $2', [reading.dischargePointId, reading.day]);
-  const [[row]] = await manager.query(
+  const [row] = await manager.query(
     `INSERT INTO flow_reading (discharge_point_id, day, value, unit, entered_by) VALUES ($1, $2, $3, $4, $5)
      ON CONFLICT (discharge_point_id, day) DO UPDATE SET value = excluded.value, unit = excluded.unit, entered_by = excluded.entered_by
      RETURNING id`,
     [reading.dischargePointId, reading.day, reading.value, reading.unit, user.id],
-  ).then((result: unknown) => (Array.isArray((result as unknown[])[0]) ? result : [result]) as [[{ id: string }]]);
+  );
   await recordTrail(manager, user, {
     action: before ? 'update' : 'create', entity: 'flow-reading', entityId: row.id, siteId,
     before: before ? { value: Number(before.value), unit: before.unit } : null, after: reading,
@@ -80,14 +78,7 @@ export function flowReadingsRoutes(dataSource: DataSource): Router {
     const user = currentUser(res);
     const { siteId, commit } = res.locals.body as z.infer<typeof ImportFields>;
     assertSiteAllowed(user, siteId);
-    const file = req.file;
-    if (!file || file.size === 0) throw invalid({ file: 'Attach an XLSX or CSV file' });
-    const type = await fileTypeFromBuffer(file.buffer);
-    const rows =
-      type?.mime === xlsxType ? xlsxRows<string>(file.buffer, flowColumns)
-      : !type && /\.csv$/i.test(file.originalname) ? csvRows<string>(file.buffer, flowColumns)
-      : null;
-    if (!rows) throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', { file: 'Expected XLSX or CSV' });
+    const rows = await spreadsheetRows<string>(req.file, flowColumns);
     const points = new Map<string, string>((await dataSource.query('SELECT code, id FROM discharge_point WHERE site_id = $1', [siteId])).map((r: { code: string; id: string }) => [r.code, r.id]));
     const today = await siteToday(dataSource, siteId);
     const readings: Reading[] = [];
@@ -106,7 +97,7 @@ export function flowReadingsRoutes(dataSource: DataSource): Router {
     }
     const report = { committed: false, rows: count, readings: readings.length, errors: errors.slice(0, 500) };
     if (commit !== 'true') return res.json(report);
-    if (errors.length > 0) return res.status(400).json({ error: { code: 'invalid_rows', message: `${errors.length} row error(s): nothing was imported`, fields: { file: 'See the row errors' } }, report });
+    if (errors.length > 0) return res.status(400).json(rowErrorsBody(report));
     await dataSource.transaction(async (manager) => {
       for (const reading of readings) await upsertReading(manager, user, siteId, reading);
     });

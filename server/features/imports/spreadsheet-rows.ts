@@ -2,7 +2,9 @@ import { parse } from 'csv-parse';
 import ExcelJS from 'exceljs';
 import { Readable } from 'node:stream';
 import { importColumns } from '../../contracts/lab-import.js';
-import { invalid } from '../../errors/app-error.js';
+import { fileTypeFromBuffer } from 'file-type';
+import { AppError, invalid } from '../../errors/app-error.js';
+import type { Upload } from '../files/stored-files.js';
 
 export interface ImportRow<K extends string = (typeof importColumns)[number]['key']> {
   /** The spreadsheet's own row number (the header is row 1). */
@@ -77,4 +79,21 @@ export async function* csvRows<K extends string>(buffer: Buffer, columns: Column
     throw error;
   }
   if (!header) throw invalid({ file: 'The file has no header row' });
+}
+
+export const xlsxType = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
+
+/** The rows of an uploaded XLSX (by its content) or CSV (text, named .csv); anything else is a 415. */
+export async function spreadsheetRows<K extends string>(file: Upload | undefined, columns: Columns = importColumns): Promise<AsyncGenerator<ImportRow<K>>> {
+  if (!file || file.size === 0) throw invalid({ file: 'Attach an XLSX or CSV file' });
+  const type = await fileTypeFromBuffer(file.buffer);
+  if (type?.mime === xlsxType) return xlsxRows<K>(file.buffer, columns);
+  const looksLikeText = !type && !file.buffer.subarray(0, 4096).includes(0);
+  if (looksLikeText && /\.csv$/i.test(file.originalname)) return csvRows<K>(file.buffer, columns);
+  throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', { file: 'Expected XLSX or CSV' });
+}
+
+/** The 400 answer of a commit refused for its row errors, carrying the whole report. */
+export function rowErrorsBody<R extends { errors: unknown[] }>(report: R) {
+  return { error: { code: 'invalid_rows', message: `${report.errors.length} row error(s): nothing was imported`, fields: { file: 'See the row errors' } }, report };
 }

@@ -1,4 +1,3 @@
-import { fileTypeFromBuffer } from 'file-type';
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import { z } from 'zod';
@@ -12,12 +11,11 @@ import { validate } from '../../middleware/validate.js';
 import { recordTrail } from '../trail/trail.js';
 import { importTemplate } from './import-template.js';
 import { planImport } from './import-plan.js';
-import { csvRows, xlsxRows } from '../imports/spreadsheet-rows.js';
+import { rowErrorsBody, spreadsheetRows, xlsxType } from '../imports/spreadsheet-rows.js';
 import type { LabCertificatesService } from './lab-certificates.service.js';
 
 const TemplateQuery = z.object({ siteId: z.uuid('Not a valid id'), format: z.enum(['xlsx', 'csv']).default('xlsx') });
 const ImportFields = z.object({ siteId: z.uuid('Not a valid id'), commit: z.enum(['true', 'false']).default('false') });
-const xlsxType = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 /** Spreadsheet import of lab results at /api/lab-certificates/import: template, dry run, commit. */
 export function labImportRoutes(dataSource: DataSource, service: LabCertificatesService): Router {
@@ -37,7 +35,7 @@ export function labImportRoutes(dataSource: DataSource, service: LabCertificates
     const user = currentUser(res);
     const { siteId, commit } = res.locals.body as z.infer<typeof ImportFields>;
     assertSiteAllowed(user, siteId);
-    const rows = await readRows(req.file);
+    const rows = await spreadsheetRows(req.file);
     const lookups = {
       siteId,
       pointIds: new Map<string, string>((await dataSource.query('SELECT code, id FROM discharge_point WHERE site_id = $1', [siteId])).map((r: { code: string; id: string }) => [r.code, r.id])),
@@ -59,7 +57,7 @@ export function labImportRoutes(dataSource: DataSource, service: LabCertificates
     };
     if (commit !== 'true') return res.json(report);
     if (plan.errors.length > 0) {
-      return res.status(400).json({ error: { code: 'invalid_rows', message: `${plan.errors.length} row error(s): nothing was imported`, fields: { file: 'See the row errors' } }, report });
+      return res.status(400).json(rowErrorsBody(report));
     }
     // All certificates or none: one transaction, one trail entry per certificate.
     await dataSource.transaction(async (manager) => {
@@ -72,13 +70,4 @@ export function labImportRoutes(dataSource: DataSource, service: LabCertificates
   });
 
   return router;
-}
-
-async function readRows(file: Express.Multer.File | undefined) {
-  if (!file || file.size === 0) throw invalid({ file: 'Attach an XLSX or CSV file' });
-  const type = await fileTypeFromBuffer(file.buffer);
-  if (type?.mime === xlsxType) return xlsxRows(file.buffer);
-  const looksLikeText = !type && !file.buffer.subarray(0, 4096).includes(0);
-  if (looksLikeText && /\.csv$/i.test(file.originalname)) return csvRows(file.buffer);
-  throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', { file: 'Expected XLSX or CSV' });
 }

@@ -2,7 +2,6 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { sncWindows } from '../../domain/period/significant-noncompliance.js';
 import type { LimitInput, Measurement, PeriodInput } from '../../domain/period/types.js';
 import { convert } from '../../domain/units.js';
-import { siteToday } from '../site-today.js';
 
 type Db = DataSource | EntityManager;
 
@@ -15,6 +14,11 @@ export interface PeriodRecord {
   endsOn: string;
   dueOn: string;
   status: string;
+  permitKind: 'pretreatment' | 'npdes';
+  lateReportDays: number;
+  submittedOn: string | null;
+  /** The site's today, read with the period so no caller asks again. */
+  today: string;
 }
 
 /**
@@ -79,7 +83,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
       kind: permit.kind, nonDetectPolicy: permit.non_detect_policy, massLoadingFactor: Number(permit.mass_loading_factor),
       dailyMaxAppliesToEachGrab: permit.daily_max_applies_to_each_grab, sncWindow: permit.snc_window,
     },
-    period: { start: period.startsOn, end: period.endsOn, asOf: await siteToday(db, period.siteId) },
+    period: { start: period.startsOn, end: period.endsOn, asOf: period.today },
     limits,
     measurements,
     flows,

@@ -7,7 +7,6 @@ import { requirePermission } from '../../middleware/require-permission.js';
 import { validate } from '../../middleware/validate.js';
 import { isoDate } from '../../contracts/fields.js';
 import { invalid } from '../../errors/app-error.js';
-import { siteToday } from '../site-today.js';
 import { recordTrail } from '../trail/trail.js';
 import { compileAndSave, ensurePeriods, findPeriod, listPeriods, summarise } from './periods.service.js';
 
@@ -46,13 +45,12 @@ export function periodsRoutes(dataSource: DataSource): Router {
     const period = await findPeriod(dataSource, res.locals.params.id);
     assertSiteVisible(user, period?.siteId, 'Period');
     await dataSource.transaction(async (manager) => {
-      const [before] = await manager.query('SELECT submitted_on::text FROM reporting_period WHERE id = $1', [period!.id]);
       if (res.locals.body.submittedOn < period!.endsOn) throw invalid({ submittedOn: 'Before the period ended' });
-      if (res.locals.body.submittedOn > (await siteToday(manager, period!.siteId))) throw invalid({ submittedOn: 'Cannot be in the future' });
+      if (res.locals.body.submittedOn > period!.today) throw invalid({ submittedOn: 'Cannot be in the future' });
       await manager.query('UPDATE reporting_period SET submitted_on = $2 WHERE id = $1', [period!.id, res.locals.body.submittedOn]);
       await recordTrail(manager, user, {
         action: 'record-submission', entity: 'reporting-period', entityId: period!.id, siteId: period!.siteId,
-        before: { submittedOn: before.submitted_on }, after: res.locals.body,
+        before: { submittedOn: period!.submittedOn }, after: res.locals.body,
       });
     });
     res.json(await summarise(dataSource, (await findPeriod(dataSource, period!.id))!));

@@ -28,10 +28,12 @@ export const summaryCautions = [
   'Daily discharges, averages and non-detects follow the definitions of 40 CFR 122.2 and the permit settings stated here; a permit may define them differently.',
 ];
 
-const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at
+const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at,
+    rp.submitted_on::text, p.kind AS permit_kind, p.late_report_days, (now() AT TIME ZONE s.time_zone)::date::text AS today
   FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
 const record = (row: Record<string, any>): PeriodRecord => ({
   id: row.id, permitId: row.permit_id, siteId: row.site_id, timeZone: row.time_zone, startsOn: row.starts_on, endsOn: row.ends_on, dueOn: row.due_on, status: row.status,
+  permitKind: row.permit_kind, lateReportDays: row.late_report_days, submittedOn: row.submitted_on, today: row.today,
 });
 
 /** Creates the permit's periods up to the one running today; safe to call on every read. */
@@ -66,9 +68,7 @@ export async function listPeriods(db: Db, siteIds: string[], permitId?: string) 
 /** The summary of one period, compiled now from the records (nothing is written). */
 export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
   const core = compilePeriod(await loadPeriodInput(db, period));
-  const [permit] = await db.query('SELECT kind, late_report_days FROM permit WHERE id = $1', [period.permitId]);
-  const [{ submitted_on: submittedOn }] = await db.query('SELECT submitted_on::text FROM reporting_period WHERE id = $1', [period.id]);
-  const timeliness = reportTimeliness(period.dueOn, submittedOn, await siteToday(db, period.siteId), permit.late_report_days, permit.kind);
+  const timeliness = reportTimeliness(period.dueOn, period.submittedOn, period.today, period.lateReportDays, period.permitKind);
   const [oil] = await db.query(
     `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
             (SELECT coalesce(sum(quantity_litres), 0) FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3) AS shipped,
@@ -96,40 +96,37 @@ export async function compileAndSave(dataSource: DataSource, user: CurrentUser, 
 
 /** The compile itself, inside the caller's transaction (the seed compiles the demo's periods). */
 export async function compileWithin(manager: EntityManager, user: Pick<CurrentUser, 'id' | 'email'>, periodId: string): Promise<PeriodSummary> {
-  {
-    const period = await findPeriod(manager, periodId);
-    if (!period) throw notFound('Period');
-    const summary = await summarise(manager, period);
-    const [permit] = await manager.query('SELECT kind FROM permit WHERE id = $1', [period.permitId]);
-    for (const row of summary.rows) {
-      for (const exceedance of row.exceedances) {
-        const [aware] = exceedance.certificateIds[0]
-          ? await manager.query('SELECT created_at FROM lab_certificate WHERE id = $1', [exceedance.certificateIds[0]])
-          : [{ created_at: new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`) }];
-        for (const obligation of violationObligations(permit.kind, row.statistic, aware.created_at)) {
-          await openFollowUp(manager, {
-            siteId: period.siteId, kind: obligation.kind, sourceEntity: 'exceedance', sourceId: stableId(row.limitId, exceedance.date),
-            title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`, dueAt: obligation.dueAt,
-          });
-        }
-      }
-      for (const missed of row.missedMonitoring) {
+  const period = await findPeriod(manager, periodId);
+  if (!period) throw notFound('Period');
+  const summary = await summarise(manager, period);
+  for (const row of summary.rows) {
+    for (const exceedance of row.exceedances) {
+      const [aware] = exceedance.certificateIds[0]
+        ? await manager.query('SELECT created_at FROM lab_certificate WHERE id = $1', [exceedance.certificateIds[0]])
+        : [{ created_at: new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`) }];
+      for (const obligation of violationObligations(period.permitKind, row.statistic, aware.created_at)) {
         await openFollowUp(manager, {
-          siteId: period.siteId, kind: 'missed-sample', sourceEntity: 'missed-monitoring', sourceId: stableId(row.dischargePointId, row.parameterId, missed.unit),
-          title: `Missed sample: ${row.parameter} at ${row.pointCode}, ${missed.unit} (${missed.taken} of ${missed.required})`,
-          dueAt: DateTime.fromISO(period.dueOn, { zone: period.timeZone }).endOf('day').toJSDate(),
+          siteId: period.siteId, kind: obligation.kind, sourceEntity: 'exceedance', sourceId: stableId(row.limitId, exceedance.date),
+          title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`, dueAt: obligation.dueAt,
         });
       }
     }
-    await openSiteDeadlines(manager, period);
-    const [saved] = await manager.query(`UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
-      compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`, [periodId, JSON.stringify(summary)]);
-    await recordTrail(manager, user, {
-      action: 'compile', entity: 'reporting-period', entityId: periodId, siteId: period.siteId,
-      after: { status: saved[0].status, exceeded: summary.rows.filter((r) => r.exceeded).length },
-    });
-    return { ...summary, status: saved[0].status };
+    for (const missed of row.missedMonitoring) {
+      await openFollowUp(manager, {
+        siteId: period.siteId, kind: 'missed-sample', sourceEntity: 'missed-monitoring', sourceId: stableId(row.dischargePointId, row.parameterId, missed.unit),
+        title: `Missed sample: ${row.parameter} at ${row.pointCode}, ${missed.unit} (${missed.taken} of ${missed.required})`,
+        dueAt: DateTime.fromISO(period.dueOn, { zone: period.timeZone }).endOf('day').toJSDate(),
+      });
+    }
   }
+  await openSiteDeadlines(manager, period);
+  const [saved] = await manager.query(`UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
+    compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`, [periodId, JSON.stringify(summary)]);
+  await recordTrail(manager, user, {
+    action: 'compile', entity: 'reporting-period', entityId: periodId, siteId: period.siteId,
+    after: { status: saved[0].status, exceeded: summary.rows.filter((r) => r.exceeded).length },
+  });
+  return { ...summary, status: saved[0].status };
 }
 
 /**
@@ -137,7 +134,7 @@ export async function compileWithin(manager: EntityManager, user: Pick<CurrentUs
  * report due within 7 days, and upkeep checks past their interval. Each opens once.
  */
 async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): Promise<void> {
-  const today = await siteToday(manager, period.siteId);
+  const today = period.today;
   const endOfDay = (day: string) => DateTime.fromISO(day, { zone: period.timeZone }).endOf('day').toJSDate();
   const shipments = await manager.query(
     `SELECT h.id, h.document_number, h.shipped_on::text AS shipped_on, s.generator_status, s.manifest_rule

@@ -4,10 +4,10 @@ import { z } from 'zod';
 import { CreateShipmentRequest, ShipmentQuery, UpdateShipmentRequest, type ShipmentView } from '../../contracts/shipments.js';
 import { currentUser, type CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { toSnake } from '../../db/rows.js';
+import { insertRow, uniquely, updateRow } from '../../db/rows.js';
 import { usedOilFlags } from '../../domain/used-oil.js';
 import { convert } from '../../domain/units.js';
-import { conflict, forbidden, invalid, notFound } from '../../errors/app-error.js';
+import { forbidden, invalid, notFound } from '../../errors/app-error.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { singleUpload } from '../../middleware/upload.js';
 import { validate } from '../../middleware/validate.js';
@@ -19,7 +19,7 @@ import { findShipment, pageShipments } from './shipments.repository.js';
 const IdParams = z.object({ id: z.uuid('Not a valid id') });
 const FileParams = IdParams.extend({ fileId: z.uuid('Not a valid id') });
 const scanTypes = ['application/pdf', 'image/jpeg', 'image/png', 'image/webp', 'image/tiff'];
-const duplicate = () => conflict('This site already recorded a shipment with this document', { documentNumber: 'Already recorded' });
+const duplicate = 'This site already recorded a shipment with this document';
 
 type ShipmentBody = Partial<z.infer<typeof CreateShipmentRequest>>;
 
@@ -62,28 +62,21 @@ export function shipmentsRoutes(dataSource: DataSource): Router {
     const user = currentUser(res);
     const body = res.locals.body as z.infer<typeof CreateShipmentRequest>;
     assertSiteAllowed(user, body.siteId);
-    const created = await dataSource.transaction(async (manager) => {
+    const created = await uniquely(() => dataSource.transaction(async (manager) => {
       const today = await siteToday(manager, body.siteId);
       if (body.shippedOn > today) throw invalid({ shippedOn: 'Cannot be in the future' });
       if (body.signedCopyReceivedOn && body.signedCopyReceivedOn > today) throw invalid({ signedCopyReceivedOn: 'Cannot be in the future' });
-      const exists = await manager.query('SELECT 1 FROM shipment WHERE site_id = $1 AND document_kind = $2 AND document_number = $3', [body.siteId, body.documentKind, body.documentNumber]);
-      if (exists.length > 0) throw duplicate();
-      const written = { siteId: body.siteId, ...columns(body as never, body), createdBy: user.id };
-      const keys = Object.keys(written);
-      const [row] = await manager.query(
-        `INSERT INTO shipment (${keys.map(toSnake).join(', ')}) VALUES (${keys.map((_, i) => `$${i + 1}`).join(', ')}) RETURNING id`,
-        Object.values(written),
-      );
-      const after = (await findShipment(manager, row.id))!;
-      await recordTrail(manager, user, { action: 'create', entity: 'shipment', entityId: row.id, siteId: body.siteId, after });
+      const row = await insertRow(manager, 'shipment', { siteId: body.siteId, ...columns(body as never, body), createdBy: user.id });
+      const after = (await findShipment(manager, row.id as string))!;
+      await recordTrail(manager, user, { action: 'create', entity: 'shipment', entityId: after.id, siteId: body.siteId, after });
       return after;
-    });
+    }), 'documentNumber', duplicate);
     res.status(201).json(created);
   });
 
   router.patch('/:id', requirePermission('shipments.write'), validate({ params: IdParams, body: UpdateShipmentRequest }), async (_req, res) => {
     const user = currentUser(res);
-    const updated = await dataSource.transaction(async (manager) => {
+    const updated = await uniquely(() => dataSource.transaction(async (manager) => {
       const before = await visibleShipment(manager, user, res.locals.params.id);
       assertMayChange(user, before);
       const changes = res.locals.body as ShipmentBody;
@@ -94,18 +87,11 @@ export function shipmentsRoutes(dataSource: DataSource): Router {
       if (merged.signedCopyReceivedOn && merged.signedCopyReceivedOn > (await siteToday(manager, before.siteId))) {
         throw invalid({ signedCopyReceivedOn: 'Cannot be in the future' });
       }
-      const written = columns(merged as never, changes);
-      const keys = Object.keys(written);
-      await manager.query(
-        `UPDATE shipment SET ${keys.map((key, i) => `${toSnake(key)} = $${i + 2}`).join(', ')}, updated_at = now() WHERE id = $1`,
-        [before.id, ...Object.values(written)],
-      ).catch((error: { code?: string }) => {
-        throw error.code === '23505' ? duplicate() : error;
-      });
+      await updateRow(manager, 'shipment', before.id, columns(merged as never, changes));
       const after = (await findShipment(manager, before.id))!;
       await recordTrail(manager, user, { action: 'update', entity: 'shipment', entityId: before.id, siteId: before.siteId, before, after });
       return after;
-    });
+    }), 'documentNumber', duplicate);
     res.json(updated);
   });
 
