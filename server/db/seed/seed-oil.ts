@@ -95,7 +95,9 @@ export async function seedOil(manager: EntityManager, sites: Array<{ key: 'north
       const age = localToday.diff(day, 'days').days;
       // North's signed copy after ~70 days never came back; everything else returns in 9–20 days.
       const neverReturned = site.key === 'north' && age > 62 && age < 90;
-      const returned = neverReturned || age < 12 ? null : day.plus({ days: 9 + (shipmentNumber % 12) }).toISODate();
+      // Copies come back 9–20 days after shipping; one not back by today is simply still out.
+      const comesBack = day.plus({ days: 9 + (shipmentNumber % 12) });
+      const returned = neverReturned || comesBack >= localToday ? null : comesBack.toISODate();
       const halogens = site.key === 'east' && shipmentNumber === 7 ? 1340 : 180 + ((shipmentNumber * 37) % 300);
       const analysis = { totalHalogensPpm: halogens, burnedAsFuel: true, arsenicPpm: 1.2, cadmiumPpm: 0.4, chromiumPpm: 2.1, leadPpm: 18, flashPointF: 210 };
       const document = `${String(100000000 + salt * 5000000 + shipmentNumber * 7919).slice(0, 9)}JJK`;
