@@ -6,6 +6,8 @@ export interface Exceedance {
   /** A day (YYYY-MM-DD), or a month (YYYY-MM) for a monthly average. */
   date: string;
   value: number;
+  /** `value` at the precision the method or the permit calls for. */
+  shownValue: string;
   limit: number;
   percentOver: number;
   resultIds: string[];
@@ -23,12 +25,18 @@ export interface LimitRow {
   limitValue: number;
   /** The statistic over the period ("<ML" when every input was a non-detect); the highest month for a monthly average. */
   computedValue: Figure | null;
+  /** `computedValue` at the precision the method or permit calls for (raw value kept above). */
+  shownValue: string | null;
+  /** The rule `shownValue` follows, with its source. */
+  precision: string;
   exceeded: boolean;
   samplesTaken: number;
   samplesRequired: number;
   missedMonitoring: Array<{ unit: string; taken: number; required: number }>;
+  /** For a mass limit (lb/day, kg/day): days sampled without a flow reading, so no loading could be worked out. */
+  daysWithoutFlow: string[];
   dailyValues: Array<{ day: string; value: Figure; massLoading: { lbPerDay: number; kgPerDay: number } | null }>;
-  monthlyValues: Array<{ month: string; value: Figure; days: number; exceeded: boolean }>;
+  monthlyValues: Array<{ month: string; value: Figure; shownValue: string; days: number; exceeded: boolean }>;
   exceedances: Exceedance[];
 }
 

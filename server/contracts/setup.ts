@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import { isoDate, timeZone, updateOf, uuid } from './fields.js';
 import { GeneratorStatus, ManifestRule } from './sites.js';
-import { unitNames } from './unit-names.js';
+import { limitUnitNames, unitNames } from './unit-names.js';
 
-export { unitNames };
+export { limitUnitNames, unitNames };
 
 const unit = z.enum(unitNames as [string, ...string[]], 'Not a unit Decant knows');
+const limitUnit = z.enum(limitUnitNames as [string, ...string[]], 'Not a unit Decant knows');
 
 export const SiteFields = z.object({
   name: z.string().trim().min(1, 'Enter a name').max(200),
@@ -71,7 +72,7 @@ export const LimitFields = z.object({
   parameterId: uuid,
   statistic: z.enum(limitStatistics),
   value: z.number().finite().min(0),
-  unit,
+  unit: limitUnit,
   frequencyCount: z.number().int().min(1).max(1000),
   frequencyPer: z.enum(['day', 'week', 'month', 'quarter']),
   sampleType: z.enum(['grab', 'composite']),

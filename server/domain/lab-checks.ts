@@ -1,6 +1,6 @@
 import { DateTime } from 'luxon';
 import type { Flag } from '../contracts/flags.js';
-import { convert } from './units.js';
+import { convert, isMassRate } from './units.js';
 import {
   HOLDING_TIME_DAYS,
   MAX_RECEIPT_TEMPERATURE_C,
@@ -147,6 +147,8 @@ export function checkResult(
     flags.push({ code: 'no-limit', severity: 'info', message: `No limit for ${result.parameterName} at this point`, source: 'the permit' });
   }
   for (const limit of limits) {
+    // A loading (lb/day) needs the day's flow: the period summary judges it, not a single result.
+    if (isMassRate(limit.unit)) continue;
     const comparable = convert(value, result.unit, limit.unit);
     if (comparable === null) {
       flags.push({

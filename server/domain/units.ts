@@ -1,12 +1,14 @@
 /**
  * Unit conversion for results, limits and flows. Each unit belongs to one dimension and has a
- * factor to that dimension's base unit. 1 US gal = 3.785411784 L (exact, NIST Handbook 44).
+ * factor to that dimension's base unit. 1 US gal = 3.785411784 L and 1 lb = 0.45359237 kg
+ * (both exact, NIST Handbook 44, Appendix C).
  */
-const US_GALLON_LITRES = 3.785411784;
+export const US_GALLON_LITRES = 3.785411784;
+const POUND_KILOGRAMS = 0.45359237;
 
 interface UnitDefinition {
-  dimension: 'concentration' | 'flow' | 'ph' | 'temperature' | 'volume';
-  /** Multiply by this to reach the base unit (mg/L, L/day, SU, L). Temperature is affine, handled apart. */
+  dimension: 'concentration' | 'flow' | 'ph' | 'temperature' | 'volume' | 'mass-rate';
+  /** Multiply by this to reach the base unit (mg/L, L/day, SU, L, kg/day). Temperature is affine, handled apart. */
   toBase: number;
 }
 
@@ -26,7 +28,34 @@ export const units: Record<string, UnitDefinition> = {
   '°F': { dimension: 'temperature', toBase: 1 },
   gal: { dimension: 'volume', toBase: US_GALLON_LITRES },
   L: { dimension: 'volume', toBase: 1 },
+  // Mass limits (loadings): not measured, computed from a concentration and the day's flow.
+  'lb/day': { dimension: 'mass-rate', toBase: POUND_KILOGRAMS },
+  'kg/day': { dimension: 'mass-rate', toBase: 1 },
 };
+
+export const isMassRate = (unit: string) => units[unit]?.dimension === 'mass-rate';
+
+/**
+ * The unit a measurement is carried in for a limit in `limitUnit`: the base unit of what is
+ * measured (a mass limit is measured as a concentration; flow is carried in MGD).
+ */
+export function measuredUnitFor(limitUnit: string): string | null {
+  switch (units[limitUnit]?.dimension) {
+    case 'concentration':
+    case 'mass-rate':
+      return 'mg/L';
+    case 'ph':
+      return 'SU';
+    case 'temperature':
+      return '°C';
+    case 'flow':
+      return 'MGD';
+    case 'volume':
+      return 'L';
+    default:
+      return null;
+  }
+}
 
 
 export function isKnownUnit(unit: string): boolean {

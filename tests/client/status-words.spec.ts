@@ -7,7 +7,7 @@ import { mountWithApp } from './mount';
 // The product brief: status is never colour alone; every state also has a word and an icon.
 const row = (over: Partial<LimitRow>): LimitRow => ({
   limitId: 'L', dischargePointId: 'P', pointCode: 'OF-001', parameterId: 'X', parameter: 'Oil and grease', statistic: 'daily-maximum', unit: 'mg/L',
-  limitValue: 100, computedValue: 40, exceeded: false, samplesTaken: 2, samplesRequired: 2, missedMonitoring: [], dailyValues: [], monthlyValues: [], exceedances: [], ...over,
+  limitValue: 100, computedValue: 40, shownValue: '40.0', precision: 'EPA Method 1664 Rev. B §12.3', exceeded: false, daysWithoutFlow: [], samplesTaken: 2, samplesRequired: 2, missedMonitoring: [], dailyValues: [], monthlyValues: [], exceedances: [], ...over,
 });
 
 describe('status words and icons', () => {
@@ -17,6 +17,7 @@ describe('status words and icons', () => {
     [{ computedValue: 120, exceeded: true }, 'Over limit'],
     [{ computedValue: '<ML' as const }, 'Non-detect'],
     [{ computedValue: null }, 'Missing'],
+    [{ computedValue: 10, unit: 'lb/day', daysWithoutFlow: ['2026-04-21'] }, 'Flow missing'],
   ])('shows %j as "%s" with an icon', (over, word) => {
     const wrapper = mountWithApp(LimitStatus, { props: { row: row(over) } });
     expect(wrapper.text()).toContain(word);

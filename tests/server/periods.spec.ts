@@ -59,6 +59,46 @@ describe('periods, summaries and follow-ups', () => {
     expect(await count()).toBe(first);
   });
 
+  it('compiles a mass limit (lb/day) from the day\'s concentration and flow, as worked by hand', async () => {
+    // A pretreatment permit with an oil and grease loading limit of 20 lb/day at a new point, April 2026.
+    const point = await request(t.app).post(`/api/sites/${ids.north}/discharge-points`).set('cookie', coordinator)
+      .send({ code: 'OF-MASS', name: 'Loading outfall', receiving: 'sewer' }).expect(201);
+    const permit = await request(t.app).post('/api/permits').set('cookie', coordinator).send({
+      siteId: ids.north, kind: 'pretreatment', number: 'HW-MASS', issuingAuthority: 'Control authority', effectiveFrom: '2026-04-01', effectiveTo: '2026-04-30',
+      reportingFrequency: 'monthly', reportDueDays: 28, nonDetectPolicy: 'zero',
+    }).expect(201);
+    const limit = (body: Record<string, unknown>) => request(t.app).post(`/api/permits/${permit.body.id}/limits`).set('cookie', coordinator)
+      .send({ dischargePointId: point.body.id, parameterId: ids.hem, statistic: 'daily-maximum', value: 20, unit: 'lb/day', frequencyCount: 1, frequencyPer: 'week', sampleType: 'grab', ...body });
+    const noPh = await limit({ parameterId: ids.ph, value: 10 }).expect(400);
+    expect(noPh.body.error.fields.unit).toMatch(/not measured as a concentration/);
+    const noInstant = await limit({ statistic: 'instantaneous-maximum' }).expect(400);
+    expect(noInstant.body.error.fields.statistic).toMatch(/daily maximum or a monthly average/);
+    await limit({}).expect(201);
+
+    for (const [day, value] of [['2026-04-07', 0.05], ['2026-04-14', 50000]] as const) {
+      await request(t.app).post('/api/flow-readings').set('cookie', coordinator)
+        .send({ dischargePointId: point.body.id, day, value, unit: day === '2026-04-07' ? 'MGD' : 'gal/day' }).expect(201);
+    }
+    const sample = (collectedAt: string, value: string) => ({
+      dischargePointId: point.body.id, collectedAt, collectedBy: 'HW', sampleType: 'grab', preservationConfirmed: true, temperatureOnReceiptC: 4,
+      results: [{ parameterId: ids.hem, method: '1664B', qualifier: null, value, mdl: 1.4, ml: 5, unit: 'mg/L', analysedAt: null }],
+    });
+    // Apr 7: 0.05 MGD × 40 mg/L × 8.34 = 16.68 lb/day. Apr 14: 50,000 gal/day = 0.05 MGD × 60 mg/L × 8.34 = 25.02 lb/day, over 20 by 25.1 %.
+    // Apr 21: 30 mg/L with no flow reading: no loading can be worked out.
+    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send({
+      siteId: ids.north, labName: 'HW Lab', labAccreditationNumber: 'HW', reportNumber: `HW-M-${Date.now()}`, receivedOn: '2026-04-24',
+      samples: [sample('2026-04-07T09:00', '40'), sample('2026-04-14T09:00', '60'), sample('2026-04-21T09:00', '30')],
+    }).expect(201);
+
+    const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
+    const summary = await request(t.app).get(`/api/periods/${periods.body.items[0].id}/summary`).set('cookie', coordinator).expect(200);
+    const [row] = summary.body.rows;
+    expect(row).toMatchObject({ unit: 'lb/day', limitValue: 20, exceeded: true, samplesTaken: 3, daysWithoutFlow: ['2026-04-21'], shownValue: '25.0' });
+    expect(row.computedValue).toBeCloseTo(25.02, 10);
+    expect(row.dailyValues.map((d: { value: number }) => d.value)).toEqual([expect.closeTo(16.68, 10), expect.closeTo(25.02, 10)]);
+    expect(row.exceedances).toEqual([expect.objectContaining({ date: '2026-04-14', percentOver: 25.1 })]);
+  });
+
   it('closes a follow-up with a note, in the trail, once', async () => {
     const [open] = await t.dataSource.query(`SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' LIMIT 1`, [ids.north]);
     const closed = await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator).send({ note: 'Phoned the pretreatment office' }).expect(200);

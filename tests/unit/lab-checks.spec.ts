@@ -76,6 +76,11 @@ describe('limits', () => {
   it('converts units before comparing: 120 000 µg/L is 120 mg/L', () => {
     expect(codes(checkResult({ ...hem, valueReported: '120000', unit: 'µg/L' }, sample, [dailyMax], zone))).toContain('over-limit');
   });
+  it('leaves a mass limit (lb/day) to the period summary: one result without its day\'s flow is no loading', () => {
+    const loading = { ...dailyMax, value: 10, unit: 'lb/day' };
+    expect(codes(checkResult({ ...hem, valueReported: '500' }, sample, [loading], zone))).not.toContain('over-limit');
+    expect(codes(checkResult({ ...hem, valueReported: '500' }, sample, [loading], zone))).not.toContain('unit-not-convertible');
+  });
   it('flags a unit that cannot be compared with the limit', () => {
     expect(codes(checkResult({ ...hem, unit: 'SU' }, sample, [dailyMax], zone))).toContain('unit-not-convertible');
   });
@@ -120,8 +125,13 @@ describe('units (NIST Handbook 44: 1 US gal = 3.785411784 L exactly)', () => {
 
 describe('unit catalogue', () => {
   it('offers in the contracts exactly the units it can convert', async () => {
-    const { unitNames } = await import('../../server/contracts/unit-names.js');
+    const { limitUnitNames } = await import('../../server/contracts/unit-names.js');
     const { units } = await import('../../server/domain/units.js');
-    expect([...unitNames].sort()).toEqual(Object.keys(units).sort());
+    expect([...limitUnitNames].sort()).toEqual(Object.keys(units).sort());
+  });
+  it('converts 1 lb/day to 0.45359237 kg/day (NIST Handbook 44, Appendix C: 1 lb = 0.453 592 37 kg exactly)', async () => {
+    const { convert } = await import('../../server/domain/units.js');
+    expect(convert(1, 'lb/day', 'kg/day')).toBe(0.45359237);
+    expect(convert(1, 'lb/day', 'mg/L')).toBeNull();
   });
 });

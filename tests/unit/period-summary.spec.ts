@@ -6,12 +6,13 @@ import type { LimitInput, Measurement, PeriodInput } from '../../server/domain/p
 
 const limit = (statistic: LimitInput['statistic'], value: number, extra: Partial<LimitInput> = {}): LimitInput => ({
   id: `L-${statistic}`, dischargePointId: 'P1', pointCode: 'OF-001', parameterId: 'OG', parameterName: 'Oil and grease', sncReviewFactor: 1.4,
-  isPollutant: true, statistic, value, unit: 'mg/L', frequencyCount: 2, frequencyPer: 'month', ...extra,
+  isPollutant: true, method1664: true, statistic, value, unit: 'mg/L', frequencyCount: 2, frequencyPer: 'month', ...extra,
 });
 let counter = 0;
 const m = (day: string, value: number, extra: Partial<Measurement> = {}): Measurement => ({
   resultId: `R${++counter}`, certificateId: `C${counter}`, dischargePointId: 'P1', parameterId: 'OG', day, qualifier: null, value, mdl: 1.4, ml: 5, ...extra,
 });
+const nd = (day: string) => m(day, 5, { qualifier: '<', mdl: 1.4, ml: 5 });
 const input = (limits: LimitInput[], measurements: Measurement[], extra: Partial<PeriodInput> = {}): PeriodInput => ({
   permit: { kind: 'pretreatment', nonDetectPolicy: 'zero', massLoadingFactor: 8.34, dailyMaxAppliesToEachGrab: false, sncWindow: 'calendar-halves' },
   period: { start: '2026-01-01', end: '2026-03-31' },
@@ -50,7 +51,7 @@ describe('daily discharges and statistics (40 CFR 122.2)', () => {
   it('counts a sample by the local day it was taken: 23:30 in Chicago is the next day in UTC, but the same local day', () => {
     // The caller gives local days; two samples on local 2026-01-31 (one at 23:30 CST = 05:30Z Feb 1) stay in January.
     const summary = compilePeriod(input([limit('monthly-average', 100)], [m('2026-01-31', 20), m('2026-01-31', 40)]));
-    expect(row(summary, 'monthly-average').monthlyValues).toEqual([{ month: '2026-01', value: 30, days: 1, exceeded: false }]);
+    expect(row(summary, 'monthly-average').monthlyValues).toEqual([{ month: '2026-01', value: 30, shownValue: '30.0', days: 1, exceeded: false }]);
   });
 
   it('treats "exceed" as strictly greater', () => {
@@ -68,7 +69,6 @@ describe('daily discharges and statistics (40 CFR 122.2)', () => {
 });
 
 describe('non-detects', () => {
-  const nd = (day: string) => m(day, 5, { qualifier: '<', mdl: 1.4, ml: 5 });
   it.each([['zero', 5], ['mdl', 5.7], ['ml', 7.5], ['half-mdl', 5.35]] as const)('enter a monthly average as %s (day values 10 and ND → %s)', (policy, expected) => {
     const summary = compilePeriod(input([limit('monthly-average', 50)], [m('2026-01-05', 10), nd('2026-01-20')], {
       permit: { kind: 'pretreatment', nonDetectPolicy: policy, massLoadingFactor: 8.34, dailyMaxAppliesToEachGrab: false, sncWindow: 'calendar-halves' },
@@ -91,6 +91,83 @@ describe('mass loading (operator formula: lb/day = MGD × mg/L × 8.34)', () => 
     const loading = row(summary, 'daily-maximum').dailyValues[0]!.massLoading!;
     expect(loading.lbPerDay).toBeCloseTo(16.68, 10);
     expect(loading.kgPerDay).toBeCloseTo(7.570823568, 9);
+  });
+});
+
+describe('mass limits (40 CFR 122.2 "daily discharge": the total mass over the day; lb/day = MGD × mg/L × 8.34)', () => {
+  const flow = (day: string, mgd: number) => ({ dischargePointId: 'P1', day, mgd });
+  const lb = (statistic: LimitInput['statistic'], value: number) => limit(statistic, value, { id: `L-${statistic}-lb`, unit: 'lb/day' });
+
+  it('turns the day\'s concentration into a loading with that day\'s flow, and compares the loading to the limit', () => {
+    // Hand-worked: 0.05 MGD × 40 mg/L × 8.34 = 16.68 lb/day (under 20); 0.05 × 50 × 8.34 = 20.85 lb/day (over 20, by 4.25 %).
+    const summary = compilePeriod(input([lb('daily-maximum', 20)], [m('2026-01-05', 40), m('2026-01-06', 50)], { flows: [flow('2026-01-05', 0.05), flow('2026-01-06', 0.05)] }));
+    const r = row(summary, 'daily-maximum');
+    expect(r.dailyValues.map((d) => d.value)).toEqual([expect.closeTo(16.68, 10), expect.closeTo(20.85, 10)]);
+    expect(r.computedValue).toBeCloseTo(20.85, 10);
+    expect(r.exceedances).toEqual([expect.objectContaining({ date: '2026-01-06', percentOver: 4.3, limit: 20 })]);
+    expect(r.exceeded).toBe(true);
+  });
+
+  it('averages the daily loadings of a month (not the concentrations) for a monthly average', () => {
+    // Hand-worked: 0.05 × 40 × 8.34 = 16.68 and 0.10 × 30 × 8.34 = 25.02 lb/day; (16.68 + 25.02) / 2 = 20.85 lb/day.
+    // The mean concentration (35 mg/L) times the mean flow (0.075 MGD) would give 21.89: not the definition.
+    const summary = compilePeriod(input([lb('monthly-average', 25)], [m('2026-01-05', 40), m('2026-01-06', 30)], { flows: [flow('2026-01-05', 0.05), flow('2026-01-06', 0.1)] }));
+    expect(row(summary, 'monthly-average').monthlyValues[0]!.value).toBeCloseTo(20.85, 10);
+  });
+
+  it('gives kg/day as m³/day × mg/L / 1000', () => {
+    // Hand-worked: 0.05 MGD = 189.2705892 m³/day (1 gal = 3.785411784 L, NIST Handbook 44) × 40 mg/L / 1000 = 7.570823568 kg/day.
+    const summary = compilePeriod(input([limit('daily-maximum', 10, { unit: 'kg/day' })], [m('2026-01-05', 40)], { flows: [flow('2026-01-05', 0.05)] }));
+    expect(row(summary, 'daily-maximum').computedValue).toBeCloseTo(7.570823568, 9);
+  });
+
+  it('uses the permit\'s factor when it says 8.3454', () => {
+    const summary = compilePeriod(input([lb('daily-maximum', 100)], [m('2026-01-05', 40)], {
+      flows: [flow('2026-01-05', 0.05)],
+      permit: { kind: 'pretreatment', nonDetectPolicy: 'zero', massLoadingFactor: 8.3454, dailyMaxAppliesToEachGrab: false, sncWindow: 'calendar-halves' },
+    }));
+    // Hand-worked: 0.05 × 40 × 8.3454 = 16.6908 lb/day.
+    expect(row(summary, 'daily-maximum').computedValue).toBeCloseTo(16.6908, 10);
+  });
+
+  it('names the sampled days without a flow reading instead of guessing their loading', () => {
+    const summary = compilePeriod(input([lb('daily-maximum', 20)], [m('2026-01-05', 40), m('2026-01-06', 900)], { flows: [flow('2026-01-05', 0.05)] }));
+    const r = row(summary, 'daily-maximum');
+    expect(r.daysWithoutFlow).toEqual(['2026-01-06']);
+    expect(r.dailyValues.map((d) => d.day)).toEqual(['2026-01-05']);
+    expect(r.exceeded).toBe(false);
+    expect(r.samplesTaken).toBe(2);
+  });
+
+  it('holds each measurement\'s loading to the mass limit for significant noncompliance (40 CFR 403.8(f)(2)(viii)(A))', () => {
+    // Two of three loadings over 20 lb/day: 0.05 × 50 × 8.34 = 20.85 and 0.05 × 60 × 8.34 = 25.02; 0.05 × 40 × 8.34 = 16.68 is under.
+    const summary = compilePeriod(input([lb('daily-maximum', 20)], [m('2026-01-05', 40), m('2026-01-06', 50), m('2026-01-07', 60)], {
+      flows: [flow('2026-01-05', 0.05), flow('2026-01-06', 0.05), flow('2026-01-07', 0.05)],
+    }));
+    expect(summary.significantNoncompliance![0]).toMatchObject({ measurements: 3, exceeding: 2, chronic: true });
+  });
+});
+
+describe('shown precision (raw values kept)', () => {
+  it('shows oil and grease as EPA Method 1664 Rev. B §12.3 says: three significant figures at 10 mg/L and above, two below', () => {
+    const high = row(compilePeriod(input([limit('daily-maximum', 100)], [m('2026-01-05', 12.345)])), 'daily-maximum');
+    expect([high.computedValue, high.shownValue]).toEqual([12.345, '12.3']);
+    const low = row(compilePeriod(input([limit('daily-maximum', 100)], [m('2026-01-05', 9.876)])), 'daily-maximum');
+    expect([low.computedValue, low.shownValue]).toEqual([9.876, '9.9']);
+    expect(high.precision).toMatch(/1664.*12\.3/);
+  });
+
+  it('shows pH to 0.1 unit and other figures to three significant figures (common practice, no published source)', () => {
+    const ph = { parameterId: 'PH', parameterName: 'pH', sncReviewFactor: null, method1664: false, unit: 'SU' };
+    const phRow = row(compilePeriod(input([limit('instantaneous-maximum', 10.5, ph)], [m('2026-01-05', 7.34, { parameterId: 'PH' })])), 'instantaneous-maximum');
+    expect(phRow.shownValue).toBe('7.3');
+    const loading = compilePeriod(input([limit('daily-maximum', 100, { unit: 'lb/day', method1664: true })], [m('2026-01-05', 40)], { flows: [{ dischargePointId: 'P1', day: '2026-01-05', mgd: 0.05 }] }));
+    expect(row(loading, 'daily-maximum').shownValue).toBe('16.7');
+  });
+
+  it('shows an all-non-detect statistic as "<ML" in both fields', () => {
+    const r = row(compilePeriod(input([limit('daily-maximum', 100)], [nd('2026-01-05')])), 'daily-maximum');
+    expect([r.computedValue, r.shownValue]).toEqual(['<ML', '<ML']);
   });
 });
 

@@ -3,6 +3,7 @@ import { SetupAndLab1796209200000 } from './1796209200000-SetupAndLab.js';
 import { OilAndShipments1796212800000 } from './1796212800000-OilAndShipments.js';
 import { Periods1796216400000 } from './1796216400000-Periods.js';
 import { ReportSubmissions1796220000000 } from './1796220000000-ReportSubmissions.js';
+import { MassLimits1796223600000 } from './1796223600000-MassLimits.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
-export const migrations = [Foundation1796205600000, SetupAndLab1796209200000, OilAndShipments1796212800000, Periods1796216400000, ReportSubmissions1796220000000];
+export const migrations = [Foundation1796205600000, SetupAndLab1796209200000, OilAndShipments1796212800000, Periods1796216400000, ReportSubmissions1796220000000, MassLimits1796223600000];

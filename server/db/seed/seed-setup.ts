@@ -14,8 +14,8 @@ const points = {
 } as const;
 
 const permits = {
-  north: { number: 'TCU-IU-0417', outfall: 'OF-001', flowLimit: 60000 },
-  east: { number: 'TCU-IU-0522', outfall: 'OF-002', flowLimit: 25000 },
+  north: { number: 'TCU-IU-0417', outfall: 'OF-001', flowLimit: 60000, oilLoadingLimit: 60 },
+  east: { number: 'TCU-IU-0522', outfall: 'OF-002', flowLimit: 25000, oilLoadingLimit: null },
 } as const;
 
 export async function seedSetup(manager: EntityManager, siteIds: Record<'north' | 'east', string>): Promise<void> {
@@ -52,6 +52,8 @@ export async function seedSetup(manager: EntityManager, siteIds: Record<'north' 
       [ph, 'instantaneous-maximum', 10.5, 'SU', 2, 'month', 'grab'],
       [flow, 'daily-maximum', spec.flowLimit, 'gal/day', 5, 'week', 'composite'],
     ];
+    // The north permit also caps the oil and grease loading (lb/day), worked out from the day's flow.
+    if (spec.oilLoadingLimit !== null) limits.push([hem, 'daily-maximum', spec.oilLoadingLimit, 'lb/day', 2, 'month', 'grab']);
     for (const [parameterId, statistic, value, unit, count, per, sampleType] of limits) {
       await manager.query(
         `INSERT INTO permit_limit (permit_id, discharge_point_id, parameter_id, statistic, value, unit, frequency_count, frequency_per, sample_type)

@@ -1,4 +1,5 @@
-import type { FlowReading, Figure, Measurement, NonDetectPolicy } from './types.js';
+import { massLoading } from './limit-units.js';
+import type { Figure, Measurement, NonDetectPolicy } from './types.js';
 
 /**
  * The number a non-detect stands for in an average, as the permit says (a permit setting;
@@ -21,47 +22,50 @@ export function nonDetectValue(measurement: Measurement, policy: NonDetectPolicy
 
 export interface DailyDischarge {
   day: string;
-  /** Numeric value used in statistics (non-detects substituted per policy). */
+  /** Numeric value used in statistics (non-detects substituted per policy), in the measured unit. */
   value: number;
   /** True when every measurement of the day was a non-detect. */
   allNonDetect: boolean;
   measurements: Measurement[];
-  /** lb/day = MGD × mg/L × factor and kg/day = m³/day × mg/L / 1000, where the day has a flow. */
+  /** lb/day and kg/day, where the day has a flow reading. */
   massLoading: { lbPerDay: number; kgPerDay: number } | null;
 }
 
-const M3_PER_MILLION_GALLONS = 3785.411784;
-
 /**
  * 40 CFR 122.2, "daily discharge": for a concentration, the average of the measurements taken
- * during the calendar day (the site's local day).
+ * during the calendar day (the site's local day). Returned in day order.
  */
-export function dailyDischarges(measurements: Measurement[], policy: NonDetectPolicy, flows: FlowReading[], factor: number): DailyDischarge[] {
+export function dailyDischarges(measurements: Measurement[], policy: NonDetectPolicy, flowOn: (day: string) => number | undefined, factor: number): DailyDischarge[] {
   const byDay = new Map<string, Measurement[]>();
   for (const measurement of measurements) {
-    const list = byDay.get(measurement.day) ?? [];
-    list.push(measurement);
-    byDay.set(measurement.day, list);
+    const list = byDay.get(measurement.day);
+    if (list) list.push(measurement);
+    else byDay.set(measurement.day, [measurement]);
   }
-  const flowByDay = new Map(flows.map((reading) => [`${reading.dischargePointId}|${reading.day}`, reading]));
-  return [...byDay.entries()]
-    .sort(([a], [b]) => a.localeCompare(b))
-    .map(([day, list]) => {
-      const values = list.map((m) => (m.qualifier === '<' ? nonDetectValue(m, policy) : m.value));
-      const value = values.reduce((sum, v) => sum + v, 0) / values.length;
-      const flow = flowByDay.get(`${list[0]!.dischargePointId}|${day}`);
-      return {
-        day,
-        value,
-        allNonDetect: list.every((m) => m.qualifier === '<'),
-        measurements: list,
-        massLoading: flow ? { lbPerDay: flow.mgd * value * factor, kgPerDay: (flow.mgd * M3_PER_MILLION_GALLONS * value) / 1000 } : null,
-      };
-    });
+  const days: DailyDischarge[] = [];
+  // Results usually arrive in day order already; sort only when they do not.
+  const order = [...byDay.keys()];
+  if (order.some((day, i) => i > 0 && day < order[i - 1]!)) order.sort();
+  for (const day of order) {
+    const list = byDay.get(day)!;
+    let sum = 0;
+    let allNonDetect = true;
+    for (const m of list) {
+      if (m.qualifier === '<') sum += nonDetectValue(m, policy);
+      else {
+        sum += m.value;
+        allNonDetect = false;
+      }
+    }
+    const value = sum / list.length;
+    const mgd = flowOn(day);
+    days.push({ day, value, allNonDetect, measurements: list, massLoading: mgd === undefined ? null : massLoading(mgd, value, factor) });
+  }
+  return days;
 }
 
 /** A statistic over daily discharges, or "<ML" when all of them were non-detects. */
-export function figureOf(days: DailyDischarge[], pick: (values: number[]) => number): Figure | null {
+export function figureOf(days: Array<{ value: number; allNonDetect: boolean }>, pick: (values: number[]) => number): Figure | null {
   if (days.length === 0) return null;
   if (days.every((day) => day.allNonDetect)) return '<ML';
   return pick(days.map((day) => day.value));

@@ -8,21 +8,50 @@ export interface MonitoringCheck {
   missed: Array<{ unit: string; taken: number; required: number }>;
 }
 
-const unitKey = (day: string, per: LimitInput['frequencyPer']) => {
-  const date = DateTime.fromISO(day, { zone: 'UTC' });
+type Per = LimitInput['frequencyPer'];
+
+const unitKey = (date: DateTime, per: Per): string => {
   switch (per) {
     case 'day':
-      return day;
+      return date.toISODate()!;
     case 'week':
       return `${date.weekYear}-W${String(date.weekNumber).padStart(2, '0')}`;
     case 'month':
-      return day.slice(0, 7);
+      return date.toISODate()!.slice(0, 7);
     case 'quarter':
       return `${date.year}-Q${date.quarter}`;
   }
 };
 
-function unitLength(key: string, per: LimitInput['frequencyPer']): number {
+/** The calendar units a period is counted in: each day's unit, and the units that count. */
+interface UnitPlan {
+  unitOfDay: Map<string, string>;
+  counted: string[];
+}
+
+function unitPlan(period: { start: string; end: string; asOf?: string }, per: Per): UnitPlan {
+  const unitOfDay = new Map<string, string>();
+  const daysIn = new Map<string, number>();
+  const lastDayOf = new Map<string, string>();
+  const end = DateTime.fromISO(period.end, { zone: 'UTC' });
+  for (let date = DateTime.fromISO(period.start, { zone: 'UTC' }); date <= end; date = date.plus({ days: 1 })) {
+    const day = date.toISODate()!;
+    const key = unitKey(date, per);
+    unitOfDay.set(day, key);
+    daysIn.set(key, (daysIn.get(key) ?? 0) + 1);
+    lastDayOf.set(key, day);
+  }
+  const counted = [...daysIn.entries()]
+    // A week or month cut by the period's edge belongs to the neighbouring period's count as well:
+    // only whole units are counted (common practice, no published source; a permit may differ).
+    .filter(([key, days]) => days === unitLength(key, per))
+    // A week or month still running is not missed yet.
+    .filter(([key]) => !period.asOf || lastDayOf.get(key)! <= period.asOf)
+    .map(([key]) => key);
+  return { unitOfDay, counted };
+}
+
+function unitLength(key: string, per: Per): number {
   switch (per) {
     case 'day':
       return 1;
@@ -40,51 +69,23 @@ function unitLength(key: string, per: LimitInput['frequencyPer']): number {
 
 /**
  * Samples taken against samples required by the monitoring frequency ("n per day / week /
- * month / quarter"), counted per calendar unit inside the period.
+ * month / quarter"), counted per calendar unit inside the period. The calendar is worked out
+ * once per frequency and period, not once per limit.
  */
-/** The period's days with their week, month and quarter keys; computed once per period, not per limit. */
-const calendars = new Map<string, Array<Record<LimitInput['frequencyPer'], string>>>();
-function calendarOf(period: { start: string; end: string }) {
-  const key = `${period.start}|${period.end}`;
-  let calendar = calendars.get(key);
-  if (!calendar) {
-    calendar = [];
-    for (let day = DateTime.fromISO(period.start, { zone: 'UTC' }); day.toISODate()! <= period.end; day = day.plus({ days: 1 })) {
-      const iso = day.toISODate()!;
-      calendar.push({ day: iso, week: unitKey(iso, 'week'), month: unitKey(iso, 'month'), quarter: unitKey(iso, 'quarter') });
+export function monitoringChecker(period: { start: string; end: string; asOf?: string }) {
+  const plans = new Map<Per, UnitPlan>();
+  return (limit: Pick<LimitInput, 'frequencyCount' | 'frequencyPer'>, measurements: Measurement[]): MonitoringCheck => {
+    let plan = plans.get(limit.frequencyPer);
+    if (!plan) plans.set(limit.frequencyPer, (plan = unitPlan(period, limit.frequencyPer)));
+    const counts = new Map(plan.counted.map((key) => [key, 0]));
+    for (const m of measurements) {
+      const key = plan.unitOfDay.get(m.day);
+      const count = key === undefined ? undefined : counts.get(key);
+      if (count !== undefined) counts.set(key!, count + 1);
     }
-    if (calendars.size > 50) calendars.clear();
-    calendars.set(key, calendar);
-  }
-  return calendar;
-}
-
-export function monitoringCheck(limit: LimitInput, measurements: Measurement[], period: { start: string; end: string; asOf?: string }): MonitoringCheck {
-  const units = new Map<string, number>();
-  const lastDayOf = new Map<string, string>();
-  const daysIn = new Map<string, number>();
-  const calendar = calendarOf(period);
-  const unitOfDay = new Map<string, string>();
-  for (const entry of calendar) {
-    const key = entry[limit.frequencyPer];
-    unitOfDay.set(entry.day, key);
-    units.set(key, 0);
-    lastDayOf.set(key, entry.day);
-    daysIn.set(key, (daysIn.get(key) ?? 0) + 1);
-  }
-  // A week or month cut by the period's edge belongs to the neighbouring period's count as well:
-  // only whole units are counted (common practice, no published source; a permit may differ).
-  for (const [key, days] of daysIn) if (days < unitLength(key, limit.frequencyPer)) units.delete(key);
-  // A week or month still running is not missed yet.
-  if (period.asOf) for (const [key, last] of lastDayOf) if (last > period.asOf) units.delete(key);
-  // One sample a collection: several results of one sample count once.
-  const samples = new Set(measurements.map((m) => `${m.day}|${m.resultId}`));
-  for (const key of samples) {
-    const unit = unitOfDay.get(key.split('|')[0]!);
-    if (unit !== undefined && units.has(unit)) units.set(unit, units.get(unit)! + 1);
-  }
-  const missed = [...units.entries()]
-    .filter(([, taken]) => taken < limit.frequencyCount)
-    .map(([unit, taken]) => ({ unit, taken, required: limit.frequencyCount }));
-  return { taken: samples.size, required: units.size * limit.frequencyCount, missed };
+    const missed = [...counts.entries()]
+      .filter(([, taken]) => taken < limit.frequencyCount)
+      .map(([unit, taken]) => ({ unit, taken, required: limit.frequencyCount }));
+    return { taken: measurements.length, required: counts.size * limit.frequencyCount, missed };
+  };
 }

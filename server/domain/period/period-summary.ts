@@ -1,42 +1,69 @@
 import { dailyDischarges, type DailyDischarge } from './daily-discharges.js';
-import { monitoringCheck } from './monitoring.js';
+import { toLimitUnit, type FlowOn, type ToLimitUnit } from './limit-units.js';
+import { monitoringChecker, type MonitoringCheck } from './monitoring.js';
+import { precisionRule, shownFigure } from './shown-precision.js';
 import { sncVerdict, sncWindows } from './significant-noncompliance.js';
-import { dailyMaximum, exceeds, fallsBelow, monthlyAverages } from './statistics.js';
+import { dailyMaximum, exceeds, fallsBelow, monthlyAverages, type DayFigure } from './statistics.js';
 import type { Exceedance, LimitRow, PeriodSummaryCore } from '../../contracts/periods.js';
 import type { Figure, LimitInput, Measurement, PeriodInput } from './types.js';
 
 export type { Exceedance, LimitRow, PeriodSummaryCore };
 
 const percentOver = (value: number, limit: number) => (limit === 0 ? 0 : Math.round(((value - limit) / limit) * 1000) / 10);
-const figure = (day: DailyDischarge): Figure => (day.allNonDetect ? '<ML' : day.value);
 const evidence = (measurements: Measurement[]) => ({
   resultIds: measurements.map((m) => m.resultId),
   certificateIds: [...new Set(measurements.map((m) => m.certificateId))],
 });
 
-type Index = Map<string, Measurement[]>;
-const pairKey = (pointId: string, parameterId: string) => `${pointId}|${parameterId}`;
-
-/** The period's measurements grouped by point and parameter, once, instead of a scan per limit. */
-function indexMeasurements(input: PeriodInput): Index {
-  const index: Index = new Map();
-  for (const m of input.measurements) {
-    if (m.day < input.period.start || m.day > input.period.end) continue;
-    const key = pairKey(m.dischargePointId, m.parameterId);
-    const list = index.get(key);
-    if (list) list.push(m);
-    else index.set(key, [m]);
+/** Lists kept per discharge point, then per parameter: built once, read once per limit. */
+class ByPointAndParameter<T extends { dischargePointId: string; parameterId: string }> {
+  private readonly points = new Map<string, Map<string, T[]>>();
+  add(item: T): void {
+    let parameters = this.points.get(item.dischargePointId);
+    if (!parameters) this.points.set(item.dischargePointId, (parameters = new Map()));
+    const list = parameters.get(item.parameterId);
+    if (list) list.push(item);
+    else parameters.set(item.parameterId, [item]);
   }
-  return index;
+  get(pointId: string, parameterId: string): T[] {
+    return this.points.get(pointId)?.get(parameterId) ?? [];
+  }
 }
 
-function limitRow(limit: LimitInput, input: PeriodInput, index: Index): LimitRow {
-  const { permit, period } = input;
-  const inPeriod = index.get(pairKey(limit.dischargePointId, limit.parameterId)) ?? [];
-  const flows = input.flows.filter((f) => f.dischargePointId === limit.dischargePointId);
-  const days = dailyDischarges(inPeriod, permit.nonDetectPolicy, flows, permit.massLoadingFactor);
-  const monitoring = monitoringCheck(limit, inPeriod, period);
-  const detected = inPeriod.filter((m) => m.qualifier === null);
+/** A daily discharge in the limit's unit (a loading for a mass limit). */
+interface LimitDay extends DayFigure {
+  source: DailyDischarge;
+}
+
+interface Context {
+  input: PeriodInput;
+  inPeriod: ByPointAndParameter<Measurement>;
+  flowOn: FlowOn;
+  monitoring: (limit: LimitInput, measurements: Measurement[]) => MonitoringCheck;
+  scaleFor: (limit: LimitInput) => ToLimitUnit;
+  /** A point's daily discharges of a parameter, shared by its limits (a daily maximum and a monthly average, say). */
+  dischargesOf: (limit: LimitInput, measurements: Measurement[]) => DailyDischarge[];
+}
+
+function limitRow(limit: LimitInput, context: Context): LimitRow {
+  const { permit } = context.input;
+  const inPeriod = context.inPeriod.get(limit.dischargePointId, limit.parameterId);
+  const scale = context.scaleFor(limit);
+  const rule = precisionRule(limit);
+  const shown = (value: Figure | null) => shownFigure(value, rule);
+  const exceedance = (date: string, value: number, measurements: Measurement[]): Exceedance => ({
+    date, value, shownValue: shown(value)!, limit: limit.value, percentOver: percentOver(value, limit.value), ...evidence(measurements),
+  });
+
+  const discharges = context.dischargesOf(limit, inPeriod);
+  const days: LimitDay[] = [];
+  const daysWithoutFlow: string[] = [];
+  for (const discharge of discharges) {
+    const value = scale(discharge.value, discharge.day);
+    if (value === null) daysWithoutFlow.push(discharge.day);
+    else days.push({ day: discharge.day, value, allNonDetect: discharge.allNonDetect, source: discharge });
+  }
+  const monitoring = context.monitoring(limit, inPeriod);
   let computedValue: Figure | null = null;
   let monthlyValues: LimitRow['monthlyValues'] = [];
   let exceedances: Exceedance[] = [];
@@ -44,39 +71,36 @@ function limitRow(limit: LimitInput, input: PeriodInput, index: Index): LimitRow
   switch (limit.statistic) {
     case 'daily-maximum': {
       computedValue = dailyMaximum(days);
-      exceedances = days
-        .filter((day) => !day.allNonDetect && day.value > limit.value)
-        .map((day) => ({ date: day.day, value: day.value, limit: limit.value, percentOver: percentOver(day.value, limit.value), ...evidence(day.measurements) }));
+      exceedances = days.filter((day) => !day.allNonDetect && day.value > limit.value).map((day) => exceedance(day.day, day.value, day.source.measurements));
       if (permit.dailyMaxAppliesToEachGrab) {
         // Some authorities apply the daily maximum to every single grab as well (a permit setting).
-        for (const m of detected.filter((m) => m.value > limit.value && !exceedances.some((e) => e.date === m.day))) {
-          exceedances.push({ date: m.day, value: m.value, limit: limit.value, percentOver: percentOver(m.value, limit.value), ...evidence([m]) });
+        const daysOver = new Set(exceedances.map((e) => e.date));
+        for (const m of inPeriod) {
+          if (m.qualifier === '<' || daysOver.has(m.day)) continue;
+          const value = scale(m.value, m.day);
+          if (value !== null && value > limit.value) exceedances.push(exceedance(m.day, value, [m]));
         }
       }
       break;
     }
     case 'monthly-average': {
-      monthlyValues = monthlyAverages(days).map((month) => ({ ...month, exceeded: exceeds(month.value, limit.value) }));
-      const numeric = monthlyValues.filter((month) => typeof month.value === 'number');
-      computedValue = monthlyValues.length === 0 ? null : numeric.length === 0 ? '<ML' : Math.max(...numeric.map((m) => m.value as number));
+      monthlyValues = monthlyAverages(days).map((month) => ({ ...month, shownValue: shown(month.value)!, exceeded: exceeds(month.value, limit.value) }));
+      const numeric = monthlyValues.map((month) => month.value).filter((value): value is number => typeof value === 'number');
+      computedValue = monthlyValues.length === 0 ? null : numeric.length === 0 ? '<ML' : Math.max(...numeric);
       exceedances = monthlyValues
         .filter((month) => month.exceeded)
-        .map((month) => ({
-          date: month.month,
-          value: month.value as number,
-          limit: limit.value,
-          percentOver: percentOver(month.value as number, limit.value),
-          ...evidence(days.filter((day) => day.day.startsWith(month.month)).flatMap((day) => day.measurements)),
-        }));
+        .map((month) => exceedance(month.month, month.value as number, days.filter((day) => day.day.startsWith(month.month)).flatMap((day) => day.source.measurements)));
       break;
     }
     case 'instantaneous-maximum':
     case 'instantaneous-minimum': {
       const isMax = limit.statistic === 'instantaneous-maximum';
-      computedValue = inPeriod.length === 0 ? null : detected.length === 0 ? '<ML' : (isMax ? Math.max : Math.min)(...detected.map((m) => m.value));
-      exceedances = detected
-        .filter((m) => (isMax ? m.value > limit.value : m.value < limit.value))
-        .map((m) => ({ date: m.day, value: m.value, limit: limit.value, percentOver: percentOver(m.value, limit.value), ...evidence([m]) }));
+      const detected = inPeriod.flatMap((m) => {
+        const value = m.qualifier === null ? scale(m.value, m.day) : null;
+        return value === null ? [] : [{ m, value }];
+      });
+      computedValue = inPeriod.length === 0 ? null : detected.length === 0 ? '<ML' : (isMax ? Math.max : Math.min)(...detected.map((d) => d.value));
+      exceedances = detected.filter(({ value }) => (isMax ? value > limit.value : value < limit.value)).map(({ m, value }) => exceedance(m.day, value, [m]));
       break;
     }
   }
@@ -93,14 +117,75 @@ function limitRow(limit: LimitInput, input: PeriodInput, index: Index): LimitRow
     unit: limit.unit,
     limitValue: limit.value,
     computedValue,
+    shownValue: shown(computedValue),
+    precision: rule.source,
     exceeded,
     samplesTaken: monitoring.taken,
     samplesRequired: monitoring.required,
     missedMonitoring: monitoring.missed,
-    dailyValues: days.map((day) => ({ day: day.day, value: figure(day), massLoading: day.massLoading })),
+    daysWithoutFlow,
+    dailyValues: days.map((day) => ({ day: day.day, value: day.allNonDetect ? '<ML' : day.value, massLoading: day.source.massLoading })),
     monthlyValues,
     exceedances,
   };
+}
+
+function contextOf(input: PeriodInput): Context {
+  const inPeriod = new ByPointAndParameter<Measurement>();
+  for (const m of input.measurements) if (m.day >= input.period.start && m.day <= input.period.end) inPeriod.add(m);
+  const flows = new Map<string, Map<string, number>>();
+  for (const reading of input.flows) {
+    let days = flows.get(reading.dischargePointId);
+    if (!days) flows.set(reading.dischargePointId, (days = new Map()));
+    days.set(reading.day, reading.mgd);
+  }
+  const flowOn: FlowOn = (pointId, day) => flows.get(pointId)?.get(day);
+  const scales = new Map<string, ToLimitUnit>();
+  const scaleFor = (limit: LimitInput) => {
+    let scale = scales.get(limit.id);
+    if (!scale) scales.set(limit.id, (scale = toLimitUnit(limit, flowOn, input.permit.massLoadingFactor)));
+    return scale;
+  };
+  const discharges = new Map<string, DailyDischarge[]>();
+  const dischargesOf = (limit: LimitInput, measurements: Measurement[]) => {
+    const key = `${limit.dischargePointId}|${limit.parameterId}`;
+    let days = discharges.get(key);
+    if (!days) {
+      const flowOnDay = (day: string) => flowOn(limit.dischargePointId, day);
+      discharges.set(key, (days = dailyDischarges(measurements, input.permit.nonDetectPolicy, flowOnDay, input.permit.massLoadingFactor)));
+    }
+    return days;
+  };
+  const checkMonitoring = monitoringChecker(input.period);
+  const checks = new Map<string, MonitoringCheck>();
+  const monitoring = (limit: LimitInput, measurements: Measurement[]) => {
+    const key = `${limit.dischargePointId}|${limit.parameterId}|${limit.frequencyCount}|${limit.frequencyPer}`;
+    let check = checks.get(key);
+    if (!check) checks.set(key, (check = checkMonitoring(limit, measurements)));
+    return check;
+  };
+  return { input, inPeriod, flowOn, monitoring, scaleFor, dischargesOf };
+}
+
+/** 40 CFR 403.8(f)(2)(viii) verdicts per pollutant and six-month window; null for a direct-discharge permit. */
+function significantNoncompliance(input: PeriodInput, context: Context): PeriodSummaryCore['significantNoncompliance'] {
+  if (input.permit.kind !== 'pretreatment') return null;
+  const limitsByPoint = new Map<string, LimitInput[]>();
+  for (const limit of input.limits) {
+    const list = limitsByPoint.get(limit.dischargePointId);
+    if (list) list.push(limit);
+    else limitsByPoint.set(limit.dischargePointId, [limit]);
+  }
+  const byParameter = new Map<string, Measurement[]>();
+  for (const m of input.measurements) {
+    const list = byParameter.get(m.parameterId);
+    if (list) list.push(m);
+    else byParameter.set(m.parameterId, [m]);
+  }
+  const parameters = new Map(input.limits.filter((l) => l.isPollutant).map((l) => [l.parameterId, { id: l.parameterId, name: l.parameterName, reviewFactor: l.sncReviewFactor }]));
+  return sncWindows(input.period, input.permit.sncWindow).flatMap((window) =>
+    [...parameters.values()].map((parameter) => sncVerdict(parameter, window, byParameter.get(parameter.id) ?? [], limitsByPoint, context.scaleFor)),
+  );
 }
 
 /**
@@ -108,16 +193,11 @@ function limitRow(limit: LimitInput, input: PeriodInput, index: Index): LimitRow
  * the same summary, so recompiling is safe and testable without a database.
  */
 export function compilePeriod(input: PeriodInput): PeriodSummaryCore {
-  const index = indexMeasurements(input);
-  const rows = input.limits.map((limit) => limitRow(limit, input, index));
-  let significantNoncompliance: PeriodSummaryCore['significantNoncompliance'] = null;
-  if (input.permit.kind === 'pretreatment') {
-    const limitsByPoint = new Map<string, LimitInput[]>();
-    for (const limit of input.limits) limitsByPoint.set(limit.dischargePointId, [...(limitsByPoint.get(limit.dischargePointId) ?? []), limit]);
-    const parameters = new Map(input.limits.filter((l) => l.isPollutant).map((l) => [l.parameterId, { id: l.parameterId, name: l.parameterName, reviewFactor: l.sncReviewFactor }]));
-    significantNoncompliance = sncWindows(input.period, input.permit.sncWindow).flatMap((window) =>
-      [...parameters.values()].map((parameter) => sncVerdict(parameter, window, input.measurements, limitsByPoint)),
-    );
-  }
-  return { nonDetectPolicy: input.permit.nonDetectPolicy, massLoadingFactor: input.permit.massLoadingFactor, rows, significantNoncompliance };
+  const context = contextOf(input);
+  return {
+    nonDetectPolicy: input.permit.nonDetectPolicy,
+    massLoadingFactor: input.permit.massLoadingFactor,
+    rows: input.limits.map((limit) => limitRow(limit, context)),
+    significantNoncompliance: significantNoncompliance(input, context),
+  };
 }

@@ -1,5 +1,6 @@
 import { DateTime } from 'luxon';
 import type { SncVerdict } from '../../contracts/periods.js';
+import type { ToLimitUnit } from './limit-units.js';
 import type { LimitInput, Measurement } from './types.js';
 
 /**
@@ -31,28 +32,48 @@ export function sncWindows(period: { start: string; end: string }, kind: 'calend
   return windows;
 }
 
+type Judge = Array<{ limit: LimitInput; scale: ToLimitUnit; isMaximum: boolean }>;
+
 /** The verdict for one parameter in one window, from every single measurement against its point's limits. */
 export function sncVerdict(
   parameter: { id: string; name: string; reviewFactor: number | null },
   window: { start: string; end: string },
   measurements: Measurement[],
   limitsByPoint: Map<string, LimitInput[]>,
+  scaleFor: (limit: LimitInput) => ToLimitUnit = () => (value) => value,
 ): SncVerdict {
-  const inWindow = measurements.filter((m) => m.parameterId === parameter.id && m.day >= window.start && m.day <= window.end);
+  // The limits a single measurement is held to: daily and instantaneous maxima, instantaneous minima.
+  const judges = new Map<string, Judge>();
+  const judgeAt = (pointId: string): Judge => {
+    let judge = judges.get(pointId);
+    if (!judge) {
+      judge = (limitsByPoint.get(pointId) ?? [])
+        .filter((l) => l.parameterId === parameter.id && l.statistic !== 'monthly-average')
+        .map((limit) => ({ limit, scale: scaleFor(limit), isMaximum: limit.statistic !== 'instantaneous-minimum' }));
+      judges.set(pointId, judge);
+    }
+    return judge;
+  };
   let exceeding = 0;
   let atOrAbove = 0;
   let counted = 0;
-  for (const m of inWindow) {
-    const limits = (limitsByPoint.get(m.dischargePointId) ?? []).filter((l) => l.parameterId === parameter.id);
-    const maxima = limits.filter((l) => l.statistic === 'daily-maximum' || l.statistic === 'instantaneous-maximum').map((l) => l.value);
-    const minima = limits.filter((l) => l.statistic === 'instantaneous-minimum').map((l) => l.value);
-    if (maxima.length === 0 && minima.length === 0) continue;
+  for (const m of measurements) {
+    if (m.parameterId !== parameter.id || m.day < window.start || m.day > window.end) continue;
+    let held = false;
+    let over = false;
+    let atReviewLevel = false;
+    for (const { limit, scale, isMaximum } of judgeAt(m.dischargePointId)) {
+      const value = scale(m.value, m.day);
+      if (value === null) continue;
+      held = true;
+      if (m.qualifier === '<') continue;
+      if (isMaximum ? value > limit.value : value < limit.value) over = true;
+      if (isMaximum && parameter.reviewFactor !== null && value >= limit.value * parameter.reviewFactor) atReviewLevel = true;
+    }
+    if (!held) continue;
     counted += 1;
-    if (m.qualifier === '<') continue;
-    const maximum = maxima.length ? Math.min(...maxima) : Infinity;
-    const minimum = minima.length ? Math.max(...minima) : -Infinity;
-    if (m.value > maximum || m.value < minimum) exceeding += 1;
-    if (parameter.reviewFactor !== null && maxima.length && m.value >= maximum * parameter.reviewFactor) atOrAbove += 1;
+    if (over) exceeding += 1;
+    if (atReviewLevel) atOrAbove += 1;
   }
   // Whole-number comparison, so exactly 66 % (say 33 of 50) is not lost to rounding.
   const atLeast = (n: number, percent: number) => counted > 0 && n * 100 >= percent * counted;

@@ -1,21 +1,30 @@
-import type { DailyDischarge } from './daily-discharges.js';
 import { figureOf } from './daily-discharges.js';
 import type { Figure } from './types.js';
 
+/** A daily discharge as the statistics see it: in the limit's unit. */
+export interface DayFigure {
+  day: string;
+  value: number;
+  allNonDetect: boolean;
+}
+
 export const mean = (values: number[]) => values.reduce((sum, v) => sum + v, 0) / values.length;
+const highest = (values: number[]) => values.reduce((max, v) => (v > max ? v : max), -Infinity);
 
 /** 40 CFR 122.2, "maximum daily discharge limitation": the highest daily discharge. */
-export const dailyMaximum = (days: DailyDischarge[]): Figure | null => figureOf(days, (values) => Math.max(...values));
+export const dailyMaximum = (days: DayFigure[]): Figure | null => figureOf(days, highest);
 
 /**
  * 40 CFR 122.2, "average monthly discharge limitation": the sum of the daily discharges
  * measured during a calendar month divided by their number — not the mean of raw samples.
  */
-export function monthlyAverages(days: DailyDischarge[]): Array<{ month: string; value: Figure; days: number }> {
-  const byMonth = new Map<string, DailyDischarge[]>();
+export function monthlyAverages(days: DayFigure[]): Array<{ month: string; value: Figure; days: number }> {
+  const byMonth = new Map<string, DayFigure[]>();
   for (const day of days) {
     const month = day.day.slice(0, 7);
-    byMonth.set(month, [...(byMonth.get(month) ?? []), day]);
+    const list = byMonth.get(month);
+    if (list) list.push(day);
+    else byMonth.set(month, [day]);
   }
   return [...byMonth.entries()].map(([month, list]) => ({ month, value: figureOf(list, mean)!, days: list.length }));
 }

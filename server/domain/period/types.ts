@@ -21,7 +21,10 @@ export interface LimitInput {
   sncReviewFactor: number | null;
   /** Flow is monitored but is not a pollutant: no significant-noncompliance verdict. */
   isPollutant: boolean;
+  /** Measured by EPA Method 1664 (HEM or SGT-HEM), whose §12.3 sets the reported precision. */
+  method1664: boolean;
   statistic: Statistic;
+  /** In `unit`: a concentration, pH, temperature, flow, or a loading (lb/day, kg/day) for a mass limit. */
   value: number;
   unit: string;
   frequencyCount: number;
@@ -36,7 +39,7 @@ export interface Measurement {
   /** The site's local calendar day of collection (YYYY-MM-DD). */
   day: string;
   qualifier: '<' | null;
-  /** In the limit's unit already (the caller converts). */
+  /** In the base unit of what is measured (mg/L, SU, °C, MGD: `measuredUnitFor`); the compiler turns it into each limit's unit. */
   value: number;
   mdl: number | null;
   ml: number | null;

@@ -1,7 +1,9 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { sncWindows } from '../../domain/period/significant-noncompliance.js';
 import type { LimitInput, Measurement, PeriodInput } from '../../domain/period/types.js';
-import { convert } from '../../domain/units.js';
+import { queryArrays } from '../../db/array-rows.js';
+import { inParallel } from '../../db/in-parallel.js';
+import { convert, measuredUnitFor } from '../../domain/units.js';
 
 type Db = DataSource | EntityManager;
 
@@ -21,52 +23,71 @@ export interface PeriodRecord {
   today: string;
 }
 
+/** A decimal from the database in the target unit; null when absent or not convertible. */
+function inUnit(text: string | null, unit: string, target: string): number | null {
+  if (text === null) return null;
+  return unit === target ? Number(text) : convert(Number(text), unit, target);
+}
+
 /**
  * Reads what one period's summary needs, and only that: the permit's limits, and the results
  * and flows at its points from the start of the earliest six-month window to the period's end
- * (through the point/day indexes), converted to each limit's unit.
+ * (through the point/day indexes), each in the base unit of what is measured.
  */
 export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<PeriodInput> {
-  const [permit] = await db.query('SELECT * FROM permit WHERE id = $1', [period.permitId]);
-  const limitRows = await db.query(
-    `SELECT l.*, d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor
-       FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id JOIN parameter p ON p.id = l.parameter_id
-      WHERE l.permit_id = $1 ORDER BY d.code, p.name, l.statistic`,
-    [period.permitId],
+  const [[permit], limitRows] = await inParallel(
+    db,
+    () => db.query('SELECT * FROM permit WHERE id = $1', [period.permitId]),
+    () => db.query(
+      `SELECT l.*, d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor, p.fraction
+         FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id JOIN parameter p ON p.id = l.parameter_id
+        WHERE l.permit_id = $1 ORDER BY d.code, p.name, l.statistic`,
+      [period.permitId],
+    ),
   );
   const limits: LimitInput[] = limitRows.map((row: Record<string, any>) => ({
     id: row.id, dischargePointId: row.discharge_point_id, pointCode: row.point_code, parameterId: row.parameter_id, parameterName: row.parameter_name,
-    sncReviewFactor: row.snc_review_factor === null ? null : Number(row.snc_review_factor), isPollutant: row.parameter_code !== 'flow',
+    sncReviewFactor: row.snc_review_factor === null ? null : Number(row.snc_review_factor), isPollutant: row.parameter_code !== 'flow', method1664: row.fraction !== null,
     statistic: row.statistic, value: Number(row.value), unit: row.unit, frequencyCount: row.frequency_count, frequencyPer: row.frequency_per,
   }));
   const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, permit.snc_window);
   const from = [period.startsOn, ...windows.map((w) => w.start)].sort()[0]!;
   const pointIds = [...new Set(limits.map((l) => l.dischargePointId))];
-  const unitOf = new Map(limits.map((l) => [`${l.dischargePointId}|${l.parameterId}`, l.unit]));
+  const parameterIds = [...new Set(limits.map((l) => l.parameterId))];
+  // Each result is carried in the base unit of what its limits measure (a mass limit measures a concentration),
+  // looked up by the point's and the parameter's place in the id arrays.
+  const measuredUnits = pointIds.map(() => parameterIds.map((): string | null => null));
+  for (const l of limits) measuredUnits[pointIds.indexOf(l.dischargePointId)]![parameterIds.indexOf(l.parameterId)] = measuredUnitFor(l.unit);
 
-  const results = await db.query(
-    `SELECT r.id, s.certificate_id, s.discharge_point_id, r.parameter_id, s.collected_on::text AS day, r.qualifier, r.value, r.unit, r.mdl, r.ml
-       FROM lab_sample s JOIN lab_result r ON r.sample_id = s.id
-      WHERE s.discharge_point_id = ANY($1::uuid[]) AND s.collected_on BETWEEN $2 AND $3`,
-    [pointIds, from, period.endsOn],
+  // Points and parameters come back as their place in the id arrays, and an MDL/ML only for a
+  // non-detect (the only place it is used): tens of thousands of rows carry less that way.
+  const [results, flowRows] = await inParallel(
+    db,
+    () => queryArrays(
+      db,
+      `SELECT r.id, s.certificate_id, array_position($1::uuid[], s.discharge_point_id) - 1, array_position($2::uuid[], r.parameter_id) - 1,
+              s.collected_on::text, r.qualifier, r.value, r.unit, CASE WHEN r.qualifier = '<' THEN r.mdl END, CASE WHEN r.qualifier = '<' THEN r.ml END
+         FROM lab_sample s JOIN lab_result r ON r.sample_id = s.id
+        WHERE s.discharge_point_id = ANY($1::uuid[]) AND r.parameter_id = ANY($2::uuid[]) AND s.collected_on BETWEEN $3 AND $4`,
+      [pointIds, parameterIds, from, period.endsOn],
+    ),
+    () => db.query(
+      `SELECT id, discharge_point_id, day::text AS day, value, unit FROM flow_reading WHERE discharge_point_id = ANY($1::uuid[]) AND day BETWEEN $2 AND $3`,
+      [pointIds, from, period.endsOn],
+    ),
   );
   const measurements: Measurement[] = [];
-  for (const row of results) {
-    const target = unitOf.get(`${row.discharge_point_id}|${row.parameter_id}`);
+  for (const [resultId, certificateId, point, parameter, day, qualifier, value, unit, mdl, ml] of results as Array<[string, string, number, number, string, string | null, string, string, string | null, string | null]>) {
+    const target = measuredUnits[point]?.[parameter];
     if (!target) continue;
-    const value = convert(Number(row.value), row.unit, target);
-    if (value === null) continue;
-    const scale = (x: string | null) => (x === null ? null : convert(Number(x), row.unit, target));
+    const measured = inUnit(value, unit, target);
+    if (measured === null) continue;
     measurements.push({
-      resultId: row.id, certificateId: row.certificate_id, dischargePointId: row.discharge_point_id, parameterId: row.parameter_id,
-      day: row.day, qualifier: row.qualifier, value, mdl: scale(row.mdl), ml: scale(row.ml),
+      resultId, certificateId, dischargePointId: pointIds[point]!, parameterId: parameterIds[parameter]!,
+      day, qualifier: qualifier === '<' ? '<' : null, value: measured, mdl: inUnit(mdl, unit, target), ml: inUnit(ml, unit, target),
     });
   }
 
-  const flowRows = await db.query(
-    `SELECT id, discharge_point_id, day::text AS day, value, unit FROM flow_reading WHERE discharge_point_id = ANY($1::uuid[]) AND day BETWEEN $2 AND $3`,
-    [pointIds, from, period.endsOn],
-  );
   const flows = flowRows.map((row: Record<string, any>) => ({ dischargePointId: row.discharge_point_id, day: row.day, mgd: convert(Number(row.value), row.unit, 'MGD')! }));
   // Flow limits are checked against the flow readings themselves.
   const flowPairs = new Map(limits.filter((l) => !l.isPollutant).map((l) => [`${l.dischargePointId}|${l.parameterId}`, l]));
@@ -74,7 +95,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     for (const row of flowRows.filter((f: Record<string, any>) => f.discharge_point_id === limit.dischargePointId)) {
       measurements.push({
         resultId: row.id, certificateId: '', dischargePointId: row.discharge_point_id, parameterId: limit.parameterId, day: row.day,
-        qualifier: null, value: convert(Number(row.value), row.unit, limit.unit)!, mdl: null, ml: null,
+        qualifier: null, value: convert(Number(row.value), row.unit, 'MGD')!, mdl: null, ml: null,
       });
     }
   }

@@ -9,6 +9,7 @@ import type { PeriodSummary } from '../../contracts/periods.js';
 import { compilePeriod } from '../../domain/period/period-summary.js';
 import { reportTimeliness } from '../../domain/report-timeliness.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
+import { inParallel } from '../../db/in-parallel.js';
 import { notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { siteToday } from '../site-today.js';
@@ -65,11 +66,9 @@ export async function listPeriods(db: Db, siteIds: string[], permitId?: string) 
   return rows.map((row: Record<string, any>) => ({ ...record(row), compiledAt: row.compiled_at?.toISOString() ?? null }));
 }
 
-/** The summary of one period, compiled now from the records (nothing is written). */
-export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
-  const core = compilePeriod(await loadPeriodInput(db, period));
-  const timeliness = reportTimeliness(period.dueOn, period.submittedOn, period.today, period.lateReportDays, period.permitKind);
-  const [oil] = await db.query(
+/** Oil collected and shipped in the period, follow-ups open at the site, and results the lab checks flagged. */
+async function periodTotals(db: Db, period: PeriodRecord) {
+  const [totals] = await db.query(
     `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
             (SELECT coalesce(sum(quantity_litres), 0) FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3) AS shipped,
             (SELECT count(*)::int FROM follow_up WHERE site_id = $1 AND status = 'open') AS open_follow_ups,
@@ -78,11 +77,19 @@ export async function summarise(db: Db, period: PeriodRecord, now = new Date()):
                 AND s.collected_on BETWEEN $2 AND $3 AND r.flag_codes <> '{}') AS lab_flags`,
     [period.siteId, period.startsOn, period.endsOn],
   );
+  return totals as { collected: string; shipped: string; open_follow_ups: number; lab_flags: number };
+}
+
+/** The summary of one period, compiled now from the records (nothing is written). */
+export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
+  const [input, totals] = await inParallel(db, () => loadPeriodInput(db, period), () => periodTotals(db, period));
+  const core = compilePeriod(input);
+  const timeliness = reportTimeliness(period.dueOn, period.submittedOn, period.today, period.lateReportDays, period.permitKind);
   return {
     periodId: period.id, permitId: period.permitId, siteId: period.siteId, status: period.status,
     period: { start: period.startsOn, end: period.endsOn, due: period.dueOn }, compiledAt: now.toISOString(), ...core,
-    oil: { collectedLitres: Number(oil.collected), shippedLitres: Number(oil.shipped) },
-    openFollowUps: oil.open_follow_ups, labFlagCount: oil.lab_flags, reportTimeliness: timeliness, cautions: summaryCautions,
+    oil: { collectedLitres: Number(totals.collected), shippedLitres: Number(totals.shipped) },
+    openFollowUps: totals.open_follow_ups, labFlagCount: totals.lab_flags, reportTimeliness: timeliness, cautions: summaryCautions,
   };
 }
 

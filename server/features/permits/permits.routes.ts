@@ -5,7 +5,7 @@ import { CreateLimitRequest, CreatePermitRequest, UpdateLimitRequest, UpdatePerm
 import { currentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { camelRow, selectRow, uniquely, type Row } from '../../db/rows.js';
-import { convert } from '../../domain/units.js';
+import { convert, isMassRate, units } from '../../domain/units.js';
 import { invalid, notFound } from '../../errors/app-error.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { validate } from '../../middleware/validate.js';
@@ -131,13 +131,17 @@ export function permitsRoutes(dataSource: DataSource): Router {
 }
 
 /** A limit's point must be of the permit's site, its parameter known there, its unit comparable. */
-async function checkLimit(manager: EntityManager, permit: Row, limit: { dischargePointId: string; parameterId: string; unit: string }) {
+async function checkLimit(manager: EntityManager, permit: Row, limit: { dischargePointId: string; parameterId: string; unit: string; statistic: string }) {
   const point = await selectRow(manager, 'discharge_point', limit.dischargePointId);
   const parameter = await selectRow(manager, 'parameter', limit.parameterId);
   const fields: Record<string, string> = {};
   if (!point || point.siteId !== permit.siteId) fields.dischargePointId = 'Not a discharge point of this permit’s site';
   if (!parameter || (parameter.siteId && parameter.siteId !== permit.siteId)) fields.parameterId = 'Not a parameter of this site';
-  else if (convert(1, limit.unit, parameter.defaultUnit as string) === null) {
+  else if (isMassRate(limit.unit)) {
+    // A loading is computed from a concentration and the day's flow (40 CFR 122.45(f) mass limits).
+    if (units[parameter.defaultUnit as string]?.dimension !== 'concentration') fields.unit = `${parameter.name as string} is not measured as a concentration, so it has no mass loading`;
+    if (limit.statistic !== 'daily-maximum' && limit.statistic !== 'monthly-average') fields.statistic = 'A mass limit is a daily maximum or a monthly average';
+  } else if (convert(1, limit.unit, parameter.defaultUnit as string) === null) {
     fields.unit = `Cannot be compared with ${parameter.name as string} (${parameter.defaultUnit as string})`;
   }
   if (Object.keys(fields).length > 0) throw invalid(fields);
