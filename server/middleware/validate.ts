@@ -6,6 +6,8 @@ interface Schemas {
   body?: z.ZodType;
   query?: z.ZodType;
   params?: z.ZodType;
+  /** What the route answers: not checked at run time, only described in /api/openapi.json. */
+  response?: z.ZodType;
 }
 
 /** Turns zod issues into `{ "field.path": "message" }`; issues without a path land on `_`. */

@@ -8,7 +8,7 @@ import { mountsOf } from './mounts.js';
 export interface RouteInfo {
   method: string;
   path: string;
-  schemas: { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType };
+  schemas: { body?: z.ZodType; query?: z.ZodType; params?: z.ZodType; response?: z.ZodType };
 }
 
 interface Layer {
@@ -44,7 +44,10 @@ export function openApiDocument(api: Router): object {
         ...(route.schemas.query ? { query: route.schemas.query } : {}),
       },
       responses: {
-        '200': { description: 'Success (201 for a creation, 204 when nothing is returned)' },
+        '200': {
+          description: 'Success (201 for a creation, 204 when nothing is returned)',
+          ...(route.schemas.response ? { content: { 'application/json': { schema: route.schemas.response } } } : {}),
+        },
         '400': { description: 'Invalid input; `fields` names each invalid input', content: { 'application/json': { schema: ErrorBody } } },
         '401': { description: 'Not signed in' },
         '403': { description: 'Not allowed for this role or site' },

@@ -34,6 +34,17 @@ describe('GET /api/openapi.json', () => {
     expect(operations).toBeGreaterThan(50);
   });
 
+  it('documents the period summary\'s stable field names, each limit row\'s with a description', async () => {
+    const { body } = await request(t.app).get('/api/openapi.json').expect(200);
+    const summary = body.paths['/api/periods/{id}/summary'].get.responses['200'].content['application/json'].schema;
+    const resolve = (schema: { $ref?: string }) => (schema.$ref ? body.components.schemas[schema.$ref.split('/').pop()!] : schema);
+    const rowSchema = resolve(resolve(summary).properties.rows.items ?? resolve(summary.properties.rows).items);
+    for (const field of ['limitId', 'parameter', 'statistic', 'unit', 'limitValue', 'computedValue', 'exceeded', 'samplesTaken', 'samplesRequired']) {
+      expect(rowSchema.properties, field).toHaveProperty(field);
+    }
+    expect(rowSchema.properties.computedValue.description).toMatch(/highest daily discharge/);
+  });
+
   it('describes bodies and parameters from the routes’ own zod schemas', async () => {
     const { body } = await request(t.app).get('/api/openapi.json').expect(200);
     const createShipment = body.paths['/api/shipments'].post;

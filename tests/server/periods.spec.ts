@@ -1,5 +1,6 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { PeriodSummary } from '../../server/contracts/periods.js';
 import { demoIds } from '../fixtures/lab.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
 
@@ -49,6 +50,8 @@ describe('periods, summaries and follow-ups', () => {
     expect(summary.body.nonDetectPolicy).toBe('half-mdl');
     expect(summary.body.significantNoncompliance).toBeNull();
     expect(summary.body.cautions[0]).toMatch(/permit and the control authority decide/);
+    // The answer has exactly the documented shape (the schema behind /api/openapi.json).
+    expect(PeriodSummary.strict().safeParse(summary.body).error).toBeUndefined();
 
     // Compiling opens the 122.41(l)(6) reports once, however often it runs.
     await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);

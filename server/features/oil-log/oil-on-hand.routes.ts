@@ -9,6 +9,7 @@ import { convert } from '../../domain/units.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { validate } from '../../middleware/validate.js';
 import { recordTrail } from '../trail/trail.js';
+import { oilBalanceInput } from './oil-on-hand.repository.js';
 
 const SiteParams = z.object({ siteId: z.uuid('Not a valid id') });
 const OpeningBalance = z.object({ volume: z.number().finite().min(0).max(10_000_000), unit: z.enum(['gal', 'L']), on: isoDate });
@@ -20,21 +21,9 @@ export function oilOnHandRoutes(dataSource: DataSource): Router {
   router.get('/', requirePermission('oil-log.read'), validate({ params: SiteParams }), async (_req, res) => {
     const { siteId } = res.locals.params;
     assertSiteVisible(currentUser(res), siteId, 'Site');
-    const [row] = await dataSource.query(
-      `SELECT s.oil_opening_balance_litres AS opening, s.oil_opening_balance_on AS opening_on, s.oil_storage_capacity_gallons AS capacity,
-              (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry o WHERE o.site_id = s.id
-                 AND (s.oil_opening_balance_on IS NULL OR o.collected_on > s.oil_opening_balance_on)) AS collected,
-              (SELECT coalesce(sum(quantity_litres), 0) FROM shipment h WHERE h.site_id = s.id
-                 AND (s.oil_opening_balance_on IS NULL OR h.shipped_on > s.oil_opening_balance_on)) AS shipped
-         FROM site s WHERE s.id = $1`,
-      [siteId],
-    );
-    const input = {
-      openingLitres: Number(row.opening), collectedLitres: Number(row.collected), shippedLitres: Number(row.shipped),
-      capacityGallons: row.capacity === null ? null : Number(row.capacity),
-    };
+    const { openingOn, ...input } = (await oilBalanceInput(dataSource, siteId))!;
     const balance = oilOnHand(input);
-    res.json({ ...input, openingOn: row.opening_on, onHandLitres: balance.litres, flags: balance.flags });
+    res.json({ ...input, openingOn, onHandLitres: balance.litres, flags: balance.flags });
   });
 
   router.put('/opening-balance', requirePermission('setup.manage'), validate({ params: SiteParams, body: OpeningBalance }), async (_req, res) => {

@@ -6,6 +6,7 @@ import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js'
 import { requirePermission } from '../../middleware/require-permission.js';
 import { validate } from '../../middleware/validate.js';
 import { isoDate } from '../../contracts/fields.js';
+import { PeriodSummary } from '../../contracts/periods.js';
 import { invalid } from '../../errors/app-error.js';
 import { recordTrail } from '../trail/trail.js';
 import { compileAndSave, ensurePeriods, findPeriod, listPeriods, summarise } from './periods.service.js';
@@ -27,20 +28,20 @@ export function periodsRoutes(dataSource: DataSource): Router {
     res.json({ items: await listPeriods(dataSource, siteIds, permitId) });
   });
 
-  router.get('/:id/summary', requirePermission('periods.read'), validate({ params: IdParams }), async (_req, res) => {
+  router.get('/:id/summary', requirePermission('periods.read'), validate({ params: IdParams, response: PeriodSummary }), async (_req, res) => {
     const period = await findPeriod(dataSource, res.locals.params.id);
     assertSiteVisible(currentUser(res), period?.siteId, 'Period');
     res.json(await summarise(dataSource, period!));
   });
 
-  router.post('/:id/compile', requirePermission('periods.compile'), validate({ params: IdParams }), async (_req, res) => {
+  router.post('/:id/compile', requirePermission('periods.compile'), validate({ params: IdParams, response: PeriodSummary }), async (_req, res) => {
     const period = await findPeriod(dataSource, res.locals.params.id);
     assertSiteVisible(currentUser(res), period?.siteId, 'Period');
     res.json(await compileAndSave(dataSource, currentUser(res), period!.id));
   });
 
   // Records when the periodic report went to the authority (signing and packs come later).
-  router.put('/:id/submission', requirePermission('periods.compile'), validate({ params: IdParams, body: SubmissionRequest }), async (_req, res) => {
+  router.put('/:id/submission', requirePermission('periods.compile'), validate({ params: IdParams, body: SubmissionRequest, response: PeriodSummary }), async (_req, res) => {
     const user = currentUser(res);
     const period = await findPeriod(dataSource, res.locals.params.id);
     assertSiteVisible(user, period?.siteId, 'Period');

@@ -5,6 +5,8 @@ import type { CurrentUser } from '../../auth/current-user.js';
 import { daysLeft, manifestDeadlines } from '../../domain/manifest-deadlines.js';
 import { violationObligations } from '../../domain/notification-deadlines.js';
 import { findEquipment } from '../equipment/equipment.repository.js';
+import { oilBalanceInput } from '../oil-log/oil-on-hand.repository.js';
+import { oilOnHand } from '../../domain/oil-collection.js';
 import type { PeriodSummary } from '../../contracts/periods.js';
 import { compilePeriod } from '../../domain/period/period-summary.js';
 import { reportTimeliness } from '../../domain/report-timeliness.js';
@@ -66,7 +68,7 @@ export async function listPeriods(db: Db, siteIds: string[], permitId?: string) 
   return rows.map((row: Record<string, any>) => ({ ...record(row), compiledAt: row.compiled_at?.toISOString() ?? null }));
 }
 
-/** Oil collected and shipped in the period, follow-ups open at the site, and results the lab checks flagged. */
+/** Oil collected and shipped in the period and on hand at its end, follow-ups open at the site, and results the lab checks flagged. */
 async function periodTotals(db: Db, period: PeriodRecord) {
   const [totals] = await db.query(
     `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
@@ -77,7 +79,12 @@ async function periodTotals(db: Db, period: PeriodRecord) {
                 AND s.collected_on BETWEEN $2 AND $3 AND r.flag_codes <> '{}') AS lab_flags`,
     [period.siteId, period.startsOn, period.endsOn],
   );
-  return totals as { collected: string; shipped: string; open_follow_ups: number; lab_flags: number };
+  const balance = await oilBalanceInput(db, period.siteId, period.endsOn);
+  return {
+    oil: { collectedLitres: Number(totals.collected), shippedLitres: Number(totals.shipped), onHandAtEndLitres: balance ? oilOnHand(balance).litres : null },
+    openFollowUps: totals.open_follow_ups as number,
+    labFlagCount: totals.lab_flags as number,
+  };
 }
 
 /** The summary of one period, compiled now from the records (nothing is written). */
@@ -88,8 +95,7 @@ export async function summarise(db: Db, period: PeriodRecord, now = new Date()):
   return {
     periodId: period.id, permitId: period.permitId, siteId: period.siteId, status: period.status,
     period: { start: period.startsOn, end: period.endsOn, due: period.dueOn }, compiledAt: now.toISOString(), ...core,
-    oil: { collectedLitres: Number(totals.collected), shippedLitres: Number(totals.shipped) },
-    openFollowUps: totals.open_follow_ups, labFlagCount: totals.lab_flags, reportTimeliness: timeliness, cautions: summaryCautions,
+    ...totals, reportTimeliness: timeliness, cautions: summaryCautions,
   };
 }
 
