@@ -76,6 +76,8 @@ export const LimitFields = z.object({
   frequencyCount: z.number().int().min(1).max(1000),
   frequencyPer: z.enum(['day', 'week', 'month', 'quarter']),
   sampleType: z.enum(['grab', 'composite']),
+  /** Decimal places the permit asks figures to be reported to; null: the method's or the usual precision. */
+  reportedDecimals: z.number().int().min(0, 'From 0 to 6 decimal places').max(6, 'From 0 to 6 decimal places').nullable().default(null),
 });
 export const CreateLimitRequest = LimitFields;
 export const UpdateLimitRequest = updateOf(LimitFields);

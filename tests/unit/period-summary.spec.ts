@@ -6,7 +6,7 @@ import type { LimitInput, Measurement, PeriodInput } from '../../server/domain/p
 
 const limit = (statistic: LimitInput['statistic'], value: number, extra: Partial<LimitInput> = {}): LimitInput => ({
   id: `L-${statistic}`, dischargePointId: 'P1', pointCode: 'OF-001', parameterId: 'OG', parameterName: 'Oil and grease', sncReviewFactor: 1.4,
-  isPollutant: true, method1664: true, statistic, value, unit: 'mg/L', frequencyCount: 2, frequencyPer: 'month', ...extra,
+  isPollutant: true, method1664: true, reportedDecimals: null, statistic, value, unit: 'mg/L', frequencyCount: 2, frequencyPer: 'month', ...extra,
 });
 let counter = 0;
 const m = (day: string, value: number, extra: Partial<Measurement> = {}): Measurement => ({
@@ -163,6 +163,11 @@ describe('shown precision (raw values kept)', () => {
     expect(phRow.shownValue).toBe('7.3');
     const loading = compilePeriod(input([limit('daily-maximum', 100, { unit: 'lb/day', method1664: true })], [m('2026-01-05', 40)], { flows: [{ dischargePointId: 'P1', day: '2026-01-05', mgd: 0.05 }] }));
     expect(row(loading, 'daily-maximum').shownValue).toBe('16.7');
+  });
+
+  it('shows the decimal places the permit asks for, before the method\'s rule', () => {
+    const r = row(compilePeriod(input([limit('daily-maximum', 100, { reportedDecimals: 2 })], [m('2026-01-05', 12.345)])), 'daily-maximum');
+    expect([r.computedValue, r.shownValue, r.precision]).toEqual([12.345, '12.35', 'The permit: 2 decimal places']);
   });
 
   it('shows an all-non-detect statistic as "<ML" in both fields', () => {

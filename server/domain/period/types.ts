@@ -23,6 +23,8 @@ export interface LimitInput {
   isPollutant: boolean;
   /** Measured by EPA Method 1664 (HEM or SGT-HEM), whose §12.3 sets the reported precision. */
   method1664: boolean;
+  /** Decimal places the permit asks figures to be reported to, or null. */
+  reportedDecimals: number | null;
   statistic: Statistic;
   /** In `unit`: a concentration, pH, temperature, flow, or a loading (lb/day, kg/day) for a mass limit. */
   value: number;

@@ -48,6 +48,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
   const limits: LimitInput[] = limitRows.map((row: Record<string, any>) => ({
     id: row.id, dischargePointId: row.discharge_point_id, pointCode: row.point_code, parameterId: row.parameter_id, parameterName: row.parameter_name,
     sncReviewFactor: row.snc_review_factor === null ? null : Number(row.snc_review_factor), isPollutant: row.parameter_code !== 'flow', method1664: row.fraction !== null,
+    reportedDecimals: row.reported_decimals,
     statistic: row.statistic, value: Number(row.value), unit: row.unit, frequencyCount: row.frequency_count, frequencyPer: row.frequency_per,
   }));
   const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, permit.snc_window);

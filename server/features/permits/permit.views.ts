@@ -39,6 +39,7 @@ export const limitTarget = (siteId: string) => ({
     frequencyCount: Number(row.frequencyCount),
     frequencyPer: row.frequencyPer as string,
     sampleType: row.sampleType as string,
+    reportedDecimals: row.reportedDecimals === null || row.reportedDecimals === undefined ? null : Number(row.reportedDecimals),
   }),
   siteIdOf: () => siteId,
 });
