@@ -86,6 +86,7 @@ const dailyFloorSql = `SELECT s.discharge_point_id, r.parameter_id, s.collected_
  WHERE d.site_id = $1 AND s.collected_on BETWEEN '2025-01-01' AND '2025-12-31' GROUP BY 1, 2, 3`;
 
 const rows: Array<Record<string, string>> = [];
+const verdicts: string[] = [];
 for (const [label, from] of [['5 years of history', 2021], ['50 years of history', 1976]] as const) {
   await addHistory(ds, siteId, certificateId, from, from === 2021 ? 2025 : 2020);
   const [{ n }] = await ds.query('SELECT count(*)::int AS n FROM lab_result');
@@ -99,8 +100,13 @@ for (const [label, from] of [['5 years of history', 2021], ['50 years of history
     'monthly aggregate (ms)': floorMs.toFixed(1), 'ratio to monthly': (summaryMs / floorMs).toFixed(2),
     'daily aggregate (ms)': dailyFloorMs.toFixed(1), 'ratio to daily': (summaryMs / dailyFloorMs).toFixed(2),
   });
+  const met = (ok: boolean) => (ok ? 'met' : 'NOT met');
+  verdicts.push(`${label}: under 300 ms ${met(summaryMs < 300)}; within 2× the daily aggregate ${met(summaryMs <= 2 * dailyFloorMs)}; within 2× the monthly aggregate ${met(summaryMs <= 2 * floorMs)}`);
 }
 console.log(`\nPeriod summary: one year, ${POINTS} points × ${PARAMETERS} parameters sampled daily (${POINTS * PARAMETERS * 365} results in the period)`);
 console.table(rows);
+// The summary reports every daily discharge (40 CFR 122.2), so the aggregate that yields the same
+// figures is the daily one; the monthly aggregate returns far fewer rows and is shown for scale.
+console.log(`Target: the summary within 2× the floor and under 300 ms.\n${verdicts.join('\n')}`);
 await ds.destroy();
 if (database.cluster?.startedHere) database.cluster.stop();
