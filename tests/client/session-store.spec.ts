@@ -1,5 +1,7 @@
 import { createPinia, setActivePinia } from 'pinia';
 import { beforeEach, describe, expect, it, vi } from 'vitest';
+import { nextTick, ref } from 'vue';
+import { useRecordSite } from '../../src/composables/useRecordSite';
 import { useSessionStore } from '../../src/stores/session';
 
 const me = {
@@ -41,5 +43,20 @@ describe('session store', () => {
     session.selectSite('s2');
     expect(session.currentSite?.id).toBe('s2');
     expect(localStorage.getItem('decant.site')).toBe('s2');
+  });
+
+  it('switches the picker to the site of the record on screen, and ignores a site the user may not see', async () => {
+    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })));
+    const session = useSessionStore();
+    await session.load();
+    const recordSite = ref<string | undefined>(undefined);
+    useRecordSite(recordSite);
+    expect(session.currentSite?.id).toBe('s1');
+    recordSite.value = 's2';
+    await nextTick();
+    expect(session.currentSite?.id).toBe('s2');
+    recordSite.value = 'not-mine';
+    await nextTick();
+    expect(session.currentSite?.id).toBe('s2');
   });
 });
