@@ -1,4 +1,4 @@
-import type { CertificateDetail, CertificateSummary, CreateLabCertificateRequest, ResultRow } from '@contracts/lab.js';
+import type { CertificateDetail, CertificateSummary, CreateLabCertificateRequest, ResultRow, UpdateLabCertificateRequest } from '@contracts/lab.js';
 import type { ImportReport } from '@contracts/lab-import.js';
 import type { Page } from '@contracts/paging.js';
 import { api, upload, type Query } from './client';
@@ -10,6 +10,9 @@ export const labApi = {
   fileUrl: (id: string, download = false) => `/api/lab-certificates/${id}/file${download ? '?download=1' : ''}`,
   create: (body: CreateLabCertificateRequest, file: File | null, onProgress?: (fraction: number) => void) =>
     upload<CertificateDetail>('POST', '/lab-certificates', { certificate: JSON.stringify(body), file }, onProgress),
+  update: (id: string, body: UpdateLabCertificateRequest) => api.put<CertificateDetail>(`/lab-certificates/${id}`, body),
+  attachFile: (id: string, file: File, onProgress?: (fraction: number) => void) =>
+    upload<CertificateDetail>('PUT', `/lab-certificates/${id}/file`, { file }, onProgress),
   templateUrl: (siteId: string, format: 'xlsx' | 'csv') => `/api/lab-certificates/import/template?siteId=${siteId}&format=${format}`,
   importFile: (siteId: string, file: File, commit: boolean, onProgress?: (fraction: number) => void) =>
     upload<ImportReport>('POST', '/lab-certificates/import', { siteId, commit: String(commit), file }, onProgress),

@@ -43,6 +43,17 @@ describe('the Lab area in a browser', () => {
     expect(await page.locator('[data-flag="holding-time"]').count()).toBeGreaterThanOrEqual(2);
     expect(await page.getByText('Holding time').first().isVisible()).toBe(true);
     await screenshot(page, 'lab-certificate-holding-time');
+
+    // The lab's reissued certificate moves the analysis inside the 28 days (Method 1664 Rev. B §8.5): correcting it clears the flag.
+    const certificateUrl = page.url();
+    await page.click('[data-test="correct"]');
+    await page.waitForURL(/\/edit$/);
+    await page.locator('[data-test="analysed-at"] input').fill('2026-03-20T10:00');
+    await screenshot(page, 'lab-correct-certificate');
+    await page.click('[data-test="save-certificate"]');
+    await page.waitForURL(certificateUrl);
+    await page.getByText('Corrected certificate').waitFor();
+    expect(await page.locator('[data-flag="holding-time"]').count()).toBe(0);
   });
 
   it('lets the auditor read the Lab area without any way to change it', async () => {
@@ -51,6 +62,11 @@ describe('the Lab area in a browser', () => {
     await page.goto(`${stack.appUrl}/lab`);
     await page.locator('tbody tr').first().waitFor();
     expect(await page.locator('[data-test="add-certificate"]').count()).toBe(0);
+    await page.locator('tbody tr a').first().click();
+    await page.waitForURL(/\/lab\/certificates\/[0-9a-f-]{36}$/);
+    await page.getByText('Findings', { exact: true }).first().waitFor();
+    expect(await page.locator('[data-test="correct"]').count()).toBe(0);
+    await page.goBack();
     await page.goto(`${stack.appUrl}/lab?tab=results`);
     await page.locator('tbody tr').first().waitFor();
     await screenshot(page, 'lab-results-auditor');

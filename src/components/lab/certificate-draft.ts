@@ -1,4 +1,4 @@
-import type { CreateLabCertificateRequest } from '@contracts/lab.js';
+import type { CertificateDetail, CreateLabCertificateRequest } from '@contracts/lab.js';
 
 export type Draft = Omit<CreateLabCertificateRequest, 'siteId'>;
 export type DraftSample = Draft['samples'][number];
@@ -25,4 +25,23 @@ const nullableWhenEmpty = new Set([
 /** Empty optional inputs travel as null, so the server does not read them as bad numbers. */
 export function toRequest(draft: Draft): Draft {
   return JSON.parse(JSON.stringify(draft, (key, value) => (nullableWhenEmpty.has(key) && value === '' ? null : value)));
+}
+
+/** A saved certificate as a draft to correct: what was entered, in the site's local time. */
+export function fromDetail(detail: CertificateDetail): Draft {
+  return {
+    labName: detail.labName,
+    labAccreditationNumber: detail.labAccreditationNumber,
+    reportNumber: detail.reportNumber,
+    receivedOn: detail.receivedOn,
+    qcBatches: detail.qcBatches.map(({ id: _id, flags: _flags, ...batch }) => batch),
+    samples: detail.samples.map((sample) => ({
+      dischargePointId: sample.dischargePointId, collectedAt: sample.collectedLocal, collectedBy: sample.collectedBy, sampleType: sample.sampleType,
+      preservationConfirmed: sample.preservationConfirmed, temperatureOnReceiptC: sample.temperatureOnReceiptC, chainOfCustodyNumber: sample.chainOfCustodyNumber,
+      results: sample.results.map((result) => ({
+        parameterId: result.parameterId, method: result.method, qualifier: result.qualifier, value: result.valueReported, mdl: result.mdl, ml: result.ml,
+        unit: result.unit, analysedAt: result.analysedLocal, qcBatchCode: result.qcBatchCode,
+      })),
+    })),
+  };
 }
