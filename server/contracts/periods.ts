@@ -16,7 +16,7 @@ export const Exceedance = z.object({
   value: doc(z.number(), 'The figure over the limit (under it for an instantaneous minimum), in the limit\'s unit, unrounded'),
   shownValue: doc(z.string(), '`value` at the precision the method or the permit calls for'),
   limit: doc(z.number(), 'The limit, in its unit'),
-  percentOver: doc(z.number(), 'How far past the limit, in % of the limit, to one decimal'),
+  percentOver: doc(z.number(), 'How far past the limit (above a maximum, below a minimum), in % of the limit, to one decimal'),
   resultIds: doc(z.array(z.string()), 'The lab results (or flow readings) behind the figure'),
   certificateIds: doc(z.array(z.string()), 'The certificates of those results'),
 });

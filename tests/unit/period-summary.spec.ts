@@ -64,6 +64,8 @@ describe('daily discharges and statistics (40 CFR 122.2)', () => {
     const summary = compilePeriod(input([limit('instantaneous-minimum', 5.5, ph), limit('instantaneous-maximum', 10.5, ph)],
       [m('2026-01-05', 7.0, { parameterId: 'PH' }), m('2026-01-05', 5.2, { parameterId: 'PH' })]));
     expect(row(summary, 'instantaneous-minimum')).toMatchObject({ computedValue: 5.2, exceeded: true });
+    // Hand-worked: (5.5 − 5.2) / 5.5 = 5.45 % below the minimum, stated as a distance past the limit.
+    expect(row(summary, 'instantaneous-minimum').exceedances).toEqual([expect.objectContaining({ value: 5.2, percentOver: 5.5 })]);
     expect(row(summary, 'instantaneous-maximum')).toMatchObject({ computedValue: 7.0, exceeded: false });
   });
 });

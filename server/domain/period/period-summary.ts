@@ -9,7 +9,9 @@ import type { Figure, LimitInput, Measurement, PeriodInput } from './types.js';
 
 export type { Exceedance, LimitRow, PeriodSummaryCore };
 
-const percentOver = (value: number, limit: number) => (limit === 0 ? 0 : Math.round(((value - limit) / limit) * 1000) / 10);
+/** How far past the limit, in % of it, to one decimal: above a maximum, or below a minimum. */
+const percentPast = (value: number, limit: number, isMinimum: boolean) =>
+  limit === 0 ? 0 : Math.round((((isMinimum ? limit - value : value - limit) / limit) * 1000)) / 10;
 const evidence = (measurements: Measurement[]) => ({
   resultIds: measurements.map((m) => m.resultId),
   certificateIds: [...new Set(measurements.map((m) => m.certificateId))],
@@ -52,7 +54,8 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
   const rule = precisionRule(limit);
   const shown = (value: Figure | null) => shownFigure(value, rule);
   const exceedance = (date: string, value: number, measurements: Measurement[]): Exceedance => ({
-    date, value, shownValue: shown(value)!, limit: limit.value, percentOver: percentOver(value, limit.value), ...evidence(measurements),
+    date, value, shownValue: shown(value)!, limit: limit.value,
+    percentOver: percentPast(value, limit.value, limit.statistic === 'instantaneous-minimum'), ...evidence(measurements),
   });
 
   const discharges = context.dischargesOf(limit, inPeriod);
