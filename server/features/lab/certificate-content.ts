@@ -20,6 +20,7 @@ export async function writeCertificateContent(
   certificateId: string,
   site: { id: string; timeZone: string },
   content: Content,
+  { replacing = true }: { replacing?: boolean } = {},
 ): Promise<void> {
   const pointIds = [...new Set(content.samples.map((sample) => sample.dischargePointId))];
   const parameterIds = [...new Set(content.samples.flatMap((sample) => sample.results.map((result) => result.parameterId)))];
@@ -47,8 +48,10 @@ export async function writeCertificateContent(
   });
   if (Object.keys(fields).length > 0) throw invalid(fields);
 
-  await manager.query('DELETE FROM lab_sample WHERE certificate_id = $1', [certificateId]);
-  await manager.query('DELETE FROM qc_batch WHERE certificate_id = $1', [certificateId]);
+  if (replacing) {
+    await manager.query('DELETE FROM lab_sample WHERE certificate_id = $1', [certificateId]);
+    await manager.query('DELETE FROM qc_batch WHERE certificate_id = $1', [certificateId]);
+  }
   const batchIds = new Map<string, string>();
   for (const batch of content.qcBatches) {
     const [row] = await manager.query(

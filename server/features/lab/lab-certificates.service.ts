@@ -6,7 +6,7 @@ import { conflict, notFound } from '../../errors/app-error.js';
 import { checkUpload, storeFile, type Upload } from '../files/stored-files.js';
 import { recordTrail } from '../trail/trail.js';
 import { writeCertificateContent } from './certificate-content.js';
-import { computeCertificateFlags } from './lab-flags.service.js';
+import { computeCertificateFlags, limitsInForce, type LimitsInForce } from './lab-flags.service.js';
 import { loadCertificate } from './lab.repository.js';
 
 const duplicateReport = () => conflict('This lab already has a certificate with this report number', { reportNumber: 'Already recorded for this lab' });
@@ -32,6 +32,8 @@ export class LabCertificatesService {
     user: CurrentUser,
     request: CreateLabCertificateRequest,
     file: { upload: Upload; mediaType: string } | null,
+    /** An import passes one lookup for all its certificates. */
+    limits: LimitsInForce = limitsInForce(manager),
   ): Promise<string> {
     const [site] = await manager.query('SELECT id, time_zone FROM site WHERE id = $1', [request.siteId]);
     if (!site) throw notFound('Site');
@@ -43,8 +45,8 @@ export class LabCertificatesService {
        VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
       [request.siteId, request.labName, request.labAccreditationNumber, request.reportNumber, request.receivedOn, stored?.id ?? null, user.id],
     );
-    await writeCertificateContent(manager, row.id, { id: site.id, timeZone: site.time_zone }, request);
-    await computeCertificateFlags(manager, row.id);
+    await writeCertificateContent(manager, row.id, { id: site.id, timeZone: site.time_zone }, request, { replacing: false });
+    await computeCertificateFlags(manager, row.id, { limits });
     return row.id;
   }
 

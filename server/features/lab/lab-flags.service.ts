@@ -22,7 +22,11 @@ interface ResultFactsRow {
  * results and the certificate itself. Called inside the transaction that wrote the data, and
  * again when a limit at one of its points changes.
  */
-export async function computeCertificateFlags(manager: EntityManager, certificateId: string, now = new Date()): Promise<void> {
+export async function computeCertificateFlags(
+  manager: EntityManager,
+  certificateId: string,
+  { now = new Date(), limits = limitsInForce(manager) }: { now?: Date; limits?: LimitsInForce } = {},
+): Promise<void> {
   const [certificate] = await manager.query(
     `SELECT c.id, s.time_zone FROM lab_certificate c JOIN site s ON s.id = c.site_id WHERE c.id = $1`,
     [certificateId],
@@ -70,7 +74,7 @@ export async function computeCertificateFlags(manager: EntityManager, certificat
     sampleUpdates.push([sample.id, JSON.stringify(sampleFlags)]);
     all.push(...sampleFlags);
 
-    const limitsByParameter = await limitsInForce(manager, sample.discharge_point_id, sample.collected_on);
+    const limitsByParameter = await limits(sample.discharge_point_id, sample.collected_on);
     for (const result of results.filter((row) => row.sample_id === sample.id)) {
       const flags = [
         ...checkResult(
@@ -121,24 +125,44 @@ function summarise(flags: Flag[]): Flag[] {
     .map(({ flag, count }) => (count > 1 ? { ...flag, message: `${flag.message} (${count}×)` } : flag));
 }
 
-/** The limits of permits in force on the sample's local day at that point, by parameter. */
-async function limitsInForce(manager: EntityManager, pointId: string, day: string): Promise<Map<string, LimitFacts[]>> {
-  const rows = await manager.query(
-    `SELECT l.parameter_id, l.statistic, l.value, l.unit, l.sample_type FROM permit_limit l JOIN permit p ON p.id = l.permit_id
-      WHERE l.discharge_point_id = $1 AND p.effective_from <= $2 AND (p.effective_to IS NULL OR p.effective_to >= $2)`,
-    [pointId, day],
-  );
-  const map = new Map<string, LimitFacts[]>();
-  for (const row of rows) {
-    const list = map.get(row.parameter_id) ?? [];
-    list.push({ statistic: row.statistic, value: Number(row.value), unit: row.unit, sampleType: row.sample_type });
-    map.set(row.parameter_id, list);
-  }
-  return map;
+/** The limits of permits in force at a point on a local day, by parameter. */
+export type LimitsInForce = (pointId: string, day: string) => Promise<Map<string, LimitFacts[]>>;
+
+/**
+ * Reads each point's limits once, with their permits' effective dates, and answers every day
+ * from memory: an import or a recheck asks for the same few points thousands of times.
+ */
+export function limitsInForce(manager: EntityManager): LimitsInForce {
+  const byPoint = new Map<string, Promise<Array<LimitFacts & { parameterId: string; from: string; to: string | null }>>>();
+  return async (pointId, day) => {
+    let limits = byPoint.get(pointId);
+    if (!limits) {
+      limits = manager
+        .query(
+          `SELECT l.parameter_id, l.statistic, l.value, l.unit, l.sample_type, p.effective_from::text AS effective_from, p.effective_to::text AS effective_to
+             FROM permit_limit l JOIN permit p ON p.id = l.permit_id WHERE l.discharge_point_id = $1`,
+          [pointId],
+        )
+        .then((rows: Array<Record<string, any>>) =>
+          rows.map((row) => ({
+            parameterId: row.parameter_id, statistic: row.statistic, value: Number(row.value), unit: row.unit, sampleType: row.sample_type,
+            from: row.effective_from, to: row.effective_to,
+          })),
+        );
+      byPoint.set(pointId, limits);
+    }
+    const map = new Map<string, LimitFacts[]>();
+    for (const { parameterId, from, to, ...limit } of await limits) {
+      if (from > day || (to !== null && to < day)) continue;
+      map.set(parameterId, [...(map.get(parameterId) ?? []), limit]);
+    }
+    return map;
+  };
 }
 
 /** After a limit changes, the flags of every certificate with a sample at that point. */
 export async function recheckResultsAtPoint(manager: EntityManager, pointId: string): Promise<void> {
   const certificates = await manager.query('SELECT DISTINCT certificate_id FROM lab_sample WHERE discharge_point_id = $1', [pointId]);
-  for (const { certificate_id } of certificates) await computeCertificateFlags(manager, certificate_id);
+  const limits = limitsInForce(manager);
+  for (const { certificate_id } of certificates) await computeCertificateFlags(manager, certificate_id, { limits });
 }

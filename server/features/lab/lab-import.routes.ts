@@ -9,6 +9,7 @@ import { requirePermission } from '../../middleware/require-permission.js';
 import { singleUpload } from '../../middleware/upload.js';
 import { validate } from '../../middleware/validate.js';
 import { recordTrail } from '../trail/trail.js';
+import { limitsInForce } from './lab-flags.service.js';
 import { importTemplate } from './import-template.js';
 import { planImport } from './import-plan.js';
 import { rowErrorsBody, spreadsheetRows, xlsxType } from '../imports/spreadsheet-rows.js';
@@ -61,8 +62,9 @@ export function labImportRoutes(dataSource: DataSource, service: LabCertificates
     }
     // All certificates or none: one transaction, one trail entry per certificate.
     await dataSource.transaction(async (manager) => {
+      const limits = limitsInForce(manager);
       for (const request of plan.requests) {
-        const id = await service.insertCertificate(manager, user, request, null);
+        const id = await service.insertCertificate(manager, user, request, null, limits);
         await recordTrail(manager, user, { action: 'import', entity: 'lab-certificate', entityId: id, siteId, after: { reportNumber: request.reportNumber, labName: request.labName, samples: request.samples.length } });
       }
     });
