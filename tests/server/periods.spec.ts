@@ -100,6 +100,14 @@ describe('periods, summaries and follow-ups', () => {
     expect(row.computedValue).toBeCloseTo(25.02, 10);
     expect(row.dailyValues.map((d: { value: number }) => d.value)).toEqual([expect.closeTo(16.68, 10), expect.closeTo(25.02, 10)]);
     expect(row.exceedances).toEqual([expect.objectContaining({ date: '2026-04-14', percentOver: 25.1 })]);
+
+    // The same sample is also over a 50 mg/L concentration limit: one violation, so one notice and one repeat sample (40 CFR 403.12(g)(2)).
+    await limit({ unit: 'mg/L', value: 50 }).expect(201);
+    await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
+    const opened = await t.dataSource.query(
+      `SELECT kind FROM follow_up WHERE source_entity = 'exceedance' AND title LIKE '%OF-MASS, 2026-04-14%' ORDER BY kind`,
+    );
+    expect(opened.map((f: { kind: string }) => f.kind)).toEqual(['notify-control-authority', 'repeat-sampling']);
   });
 
   it('closes a follow-up with a note, in the trail, once', async () => {

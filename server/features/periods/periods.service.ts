@@ -119,7 +119,9 @@ export async function compileWithin(manager: EntityManager, user: Pick<CurrentUs
         : [{ created_at: new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`) }];
       for (const obligation of violationObligations(period.permitKind, row.statistic, aware.created_at)) {
         await openFollowUp(manager, {
-          siteId: period.siteId, kind: obligation.kind, sourceEntity: 'exceedance', sourceId: stableId(row.limitId, exceedance.date),
+          // Keyed by point, parameter and day (or month): one sample over a concentration and a
+          // loading limit at once is one violation to report, not two.
+          siteId: period.siteId, kind: obligation.kind, sourceEntity: 'exceedance', sourceId: stableId(row.dischargePointId, row.parameterId, exceedance.date),
           title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`, dueAt: obligation.dueAt,
         });
       }
