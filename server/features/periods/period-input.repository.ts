@@ -23,6 +23,10 @@ export interface PeriodRecord {
   today: string;
 }
 
+/** A row of the results read, in the order of its SELECT list. */
+type ResultRow = [id: string, certificateId: string, point: number, parameter: number, day: string, qualifier: string | null,
+  value: string, unit: string, mdl: string | null, ml: string | null];
+
 /** A decimal from the database in the target unit; null when absent or not convertible. */
 function inUnit(text: string | null, unit: string, target: string): number | null {
   if (text === null) return null;
@@ -78,7 +82,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     ),
   );
   const measurements: Measurement[] = [];
-  for (const [resultId, certificateId, point, parameter, day, qualifier, value, unit, mdl, ml] of results as Array<[string, string, number, number, string, string | null, string, string, string | null, string | null]>) {
+  for (const [resultId, certificateId, point, parameter, day, qualifier, value, unit, mdl, ml] of results as ResultRow[]) {
     const target = measuredUnits[point]?.[parameter];
     if (!target) continue;
     const measured = inUnit(value, unit, target);
