@@ -1,6 +1,7 @@
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { chownSync, existsSync, mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { connect } from 'node:net';
 import { join, resolve } from 'node:path';
 import pg from 'pg';
 import { run, runStatus } from './processes.js';
@@ -79,6 +80,11 @@ export async function startLocalCluster(projectDir: string, port: number): Promi
   const [statusCommand, statusArgs] = ctl(['status']);
   const running = runStatus(statusCommand, [...statusArgs]) === 0;
   if (!running) {
+    if (await portTaken(port)) {
+      throw new Error(
+        `Port ${port} on 127.0.0.1 is taken by another program (another checkout's database, perhaps). Stop it, or pick a free port: PGPORT=${port + 10} npm start`,
+      );
+    }
     const [command, args] = ctl([
       '-l', join(dataDir, 'server.log'), '-w', '-t', '60',
       '-o', `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=''`, 'start',
@@ -93,6 +99,18 @@ export async function startLocalCluster(projectDir: string, port: number): Promi
       runStatus(command, [...args]);
     },
   };
+}
+
+/** Whether something already listens on the port, so PostgreSQL's own "could not bind" is not all the user sees. */
+function portTaken(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = connect({ host: '127.0.0.1', port });
+    socket.once('connect', () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once('error', () => resolve(false));
+  });
 }
 
 function postgresIds(): { uid: number; gid: number } {
