@@ -7,6 +7,7 @@ export type { LimitRow, PeriodSummary };
 export interface PeriodListItem {
   id: string;
   permitId: string;
+  permitNumber: string;
   siteId: string;
   startsOn: string;
   endsOn: string;

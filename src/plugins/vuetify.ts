@@ -51,7 +51,8 @@ export default createVuetify({
     VCombobox: { variant: 'outlined', density: 'comfortable', color: 'primary' },
     VBtn: { rounded: 'lg' },
     VCard: { rounded: 'lg', elevation: 0, border: true },
-    VDataTableServer: { density: 'compact', hover: true },
+    // Lists open at 25 rows, one of the page sizes they offer, and say plainly when nothing matches.
+    VDataTableServer: { density: 'compact', hover: true, itemsPerPage: 25, noDataText: 'Nothing here for this site and these filters.' },
     VChip: { size: 'small', rounded: 'lg' },
   },
 });

@@ -40,7 +40,8 @@ describe('periods, summaries and follow-ups', () => {
     }).expect(201);
 
     const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
-    expect(periods.body.items.map((p: { startsOn: string; endsOn: string; dueOn: string }) => [p.startsOn, p.endsOn, p.dueOn])).toEqual([['2026-03-01', '2026-03-31', '2026-04-28']]);
+    expect(periods.body.items.map((p: { permitNumber: string; startsOn: string; endsOn: string; dueOn: string }) => [p.permitNumber, p.startsOn, p.endsOn, p.dueOn]))
+      .toEqual([['HW-0001', '2026-03-01', '2026-03-31', '2026-04-28']]);
     const summary = await request(t.app).get(`/api/periods/${periods.body.items[0].id}/summary`).set('cookie', coordinator).expect(200);
     const byStatistic = Object.fromEntries(summary.body.rows.map((r: { statistic: string }) => [r.statistic, r]));
     expect(byStatistic['daily-maximum']).toMatchObject({ computedValue: 24, exceeded: true, samplesTaken: 5, limitValue: 20, unit: 'mg/L' });

@@ -17,6 +17,7 @@ export interface PeriodRecord {
   dueOn: string;
   status: string;
   permitKind: 'pretreatment' | 'npdes';
+  permitNumber: string;
   lateReportDays: number;
   submittedOn: string | null;
   /** The site's today, read with the period so no caller asks again. */

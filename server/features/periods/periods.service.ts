@@ -32,11 +32,11 @@ export const summaryCautions = [
 ];
 
 const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at,
-    rp.submitted_on::text, p.kind AS permit_kind, p.late_report_days, (now() AT TIME ZONE s.time_zone)::date::text AS today
+    rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, p.late_report_days, (now() AT TIME ZONE s.time_zone)::date::text AS today
   FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
 const record = (row: Record<string, any>): PeriodRecord => ({
   id: row.id, permitId: row.permit_id, siteId: row.site_id, timeZone: row.time_zone, startsOn: row.starts_on, endsOn: row.ends_on, dueOn: row.due_on, status: row.status,
-  permitKind: row.permit_kind, lateReportDays: row.late_report_days, submittedOn: row.submitted_on, today: row.today,
+  permitKind: row.permit_kind, permitNumber: row.permit_number, lateReportDays: row.late_report_days, submittedOn: row.submitted_on, today: row.today,
 });
 
 /** Creates the permit's periods up to the one running today; safe to call on every read. */
@@ -62,7 +62,7 @@ export async function findPeriod(db: Db, id: string): Promise<PeriodRecord | nul
 
 export async function listPeriods(db: Db, siteIds: string[], permitId?: string) {
   const rows = await db.query(
-    `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY rp.starts_on DESC`,
+    `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY p.number, rp.starts_on DESC`,
     [siteIds, permitId ?? null],
   );
   return rows.map((row: Record<string, any>) => ({ ...record(row), compiledAt: row.compiled_at?.toISOString() ?? null }));
