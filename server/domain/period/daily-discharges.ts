@@ -36,30 +36,29 @@ export interface DailyDischarge {
  * during the calendar day (the site's local day). Returned in day order.
  */
 export function dailyDischarges(measurements: Measurement[], policy: NonDetectPolicy, flowOn: (day: string) => number | undefined, factor: number): DailyDischarge[] {
-  const byDay = new Map<string, Measurement[]>();
-  for (const measurement of measurements) {
-    const list = byDay.get(measurement.day);
-    if (list) list.push(measurement);
-    else byDay.set(measurement.day, [measurement]);
-  }
+  // Results usually arrive in day order already: group runs of one day, sorting only when needed.
+  const ordered = measurements.some((m, i) => i > 0 && m.day < measurements[i - 1]!.day)
+    ? [...measurements].sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : 0))
+    : measurements;
   const days: DailyDischarge[] = [];
-  // Results usually arrive in day order already; sort only when they do not.
-  const order = [...byDay.keys()];
-  if (order.some((day, i) => i > 0 && day < order[i - 1]!)) order.sort();
-  for (const day of order) {
-    const list = byDay.get(day)!;
+  let start = 0;
+  while (start < ordered.length) {
+    const day = ordered[start]!.day;
+    let end = start;
     let sum = 0;
     let allNonDetect = true;
-    for (const m of list) {
+    for (; end < ordered.length && ordered[end]!.day === day; end++) {
+      const m = ordered[end]!;
       if (m.qualifier === '<') sum += nonDetectValue(m, policy);
       else {
         sum += m.value;
         allNonDetect = false;
       }
     }
-    const value = sum / list.length;
+    const value = sum / (end - start);
     const mgd = flowOn(day);
-    days.push({ day, value, allNonDetect, measurements: list, massLoading: mgd === undefined ? null : massLoading(mgd, value, factor) });
+    days.push({ day, value, allNonDetect, measurements: ordered.slice(start, end), massLoading: mgd === undefined ? null : massLoading(mgd, value, factor) });
+    start = end;
   }
   return days;
 }

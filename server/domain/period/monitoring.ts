@@ -1,5 +1,5 @@
 import { DateTime } from 'luxon';
-import type { LimitInput, Measurement } from './types.js';
+import type { LimitInput } from './types.js';
 
 export interface MonitoringCheck {
   taken: number;
@@ -67,25 +67,54 @@ function unitLength(key: string, per: Per): number {
   }
 }
 
+/** The calendar unit of a day: by slicing for day, month and quarter; from the plan for ISO weeks. */
+function unitOfDay(day: string, per: Per, plan: UnitPlan): string | undefined {
+  switch (per) {
+    case 'day':
+      return day;
+    case 'month':
+      return day.slice(0, 7);
+    case 'quarter':
+      return `${day.slice(0, 4)}-Q${Math.floor((Number(day.slice(5, 7)) - 1) / 3) + 1}`;
+    case 'week':
+      return plan.unitOfDay.get(day);
+  }
+}
+
 /**
  * Samples taken against samples required by the monitoring frequency ("n per day / week /
  * month / quarter"), counted per calendar unit inside the period. The calendar is worked out
- * once per frequency and period, not once per limit.
+ * once per frequency and period, not once per limit. Takes the period's sampled days in day
+ * order with how many samples each had.
  */
 export function monitoringChecker(period: { start: string; end: string; asOf?: string }) {
   const plans = new Map<Per, UnitPlan>();
-  return (limit: Pick<LimitInput, 'frequencyCount' | 'frequencyPer'>, measurements: Measurement[]): MonitoringCheck => {
+  return (limit: Pick<LimitInput, 'frequencyCount' | 'frequencyPer'>, days: Array<{ day: string; samples: number }>): MonitoringCheck => {
     let plan = plans.get(limit.frequencyPer);
     if (!plan) plans.set(limit.frequencyPer, (plan = unitPlan(period, limit.frequencyPer)));
     const counts = new Map(plan.counted.map((key) => [key, 0]));
-    for (const m of measurements) {
-      const key = plan.unitOfDay.get(m.day);
-      const count = key === undefined ? undefined : counts.get(key);
-      if (count !== undefined) counts.set(key!, count + 1);
+    let taken = 0;
+    // Days come in order, so a unit's days are together: add each run once.
+    let unit: string | undefined;
+    let inUnit = 0;
+    const addRun = () => {
+      const count = unit === undefined ? undefined : counts.get(unit);
+      if (count !== undefined) counts.set(unit!, count + inUnit);
+    };
+    for (const { day, samples } of days) {
+      taken += samples;
+      const key = unitOfDay(day, limit.frequencyPer, plan);
+      if (key !== unit) {
+        addRun();
+        unit = key;
+        inUnit = 0;
+      }
+      inUnit += samples;
     }
+    addRun();
     const missed = [...counts.entries()]
-      .filter(([, taken]) => taken < limit.frequencyCount)
-      .map(([unit, taken]) => ({ unit, taken, required: limit.frequencyCount }));
-    return { taken: measurements.length, required: counts.size * limit.frequencyCount, missed };
+      .filter(([, count]) => count < limit.frequencyCount)
+      .map(([key, count]) => ({ unit: key, taken: count, required: limit.frequencyCount }));
+    return { taken, required: counts.size * limit.frequencyCount, missed };
   };
 }

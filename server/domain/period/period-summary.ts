@@ -41,7 +41,7 @@ interface Context {
   input: PeriodInput;
   inPeriod: ByPointAndParameter<Measurement>;
   flowOn: FlowOn;
-  monitoring: (limit: LimitInput, measurements: Measurement[]) => MonitoringCheck;
+  monitoring: (limit: LimitInput, discharges: DailyDischarge[]) => MonitoringCheck;
   scaleFor: (limit: LimitInput) => ToLimitUnit;
   /** A point's daily discharges of a parameter, shared by its limits (a daily maximum and a monthly average, say). */
   dischargesOf: (limit: LimitInput, measurements: Measurement[]) => DailyDischarge[];
@@ -66,7 +66,7 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
     if (value === null) daysWithoutFlow.push(discharge.day);
     else days.push({ day: discharge.day, value, allNonDetect: discharge.allNonDetect, source: discharge });
   }
-  const monitoring = context.monitoring(limit, inPeriod);
+  const monitoring = context.monitoring(limit, discharges);
   let computedValue: Figure | null = null;
   let monthlyValues: LimitRow['monthlyValues'] = [];
   let exceedances: Exceedance[] = [];
@@ -161,10 +161,10 @@ function contextOf(input: PeriodInput): Context {
   };
   const checkMonitoring = monitoringChecker(input.period);
   const checks = new Map<string, MonitoringCheck>();
-  const monitoring = (limit: LimitInput, measurements: Measurement[]) => {
+  const monitoring = (limit: LimitInput, discharges: DailyDischarge[]) => {
     const key = `${limit.dischargePointId}|${limit.parameterId}|${limit.frequencyCount}|${limit.frequencyPer}`;
     let check = checks.get(key);
-    if (!check) checks.set(key, (check = checkMonitoring(limit, measurements)));
+    if (!check) checks.set(key, (check = checkMonitoring(limit, discharges.map((d) => ({ day: d.day, samples: d.measurements.length })))));
     return check;
   };
   return { input, inPeriod, flowOn, monitoring, scaleFor, dischargesOf };
