@@ -3,11 +3,17 @@ import pg from 'pg';
 import { createApp } from './app.js';
 import { loadConfig } from './config/env.js';
 import { createDataSource } from './db/data-source.js';
+import { ensureAllPeriods } from './features/periods/periods.service.js';
 
 const config = loadConfig();
 const dataSource = await createDataSource(config.databaseUrl).initialize();
 const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
 const app = createApp({ config, dataSource, sessionPool, clientDir: resolve(import.meta.dirname, '../dist') });
+
+// Reporting periods begin with the calendar, not with a request: create them now and hourly.
+const createDuePeriods = () => ensureAllPeriods(dataSource).catch((error) => console.error('Creating reporting periods failed:', error));
+await createDuePeriods();
+setInterval(() => void createDuePeriods(), 60 * 60 * 1000).unref();
 
 const server = app.listen(config.port, config.host, () => {
   console.log(`Decant app listening on ${config.appUrl}`);

@@ -2,6 +2,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PeriodSummary } from '../../server/contracts/periods.js';
 import { demoIds } from '../fixtures/lab.js';
+import { ensureAllPeriods } from '../../server/features/periods/periods.service.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
 
 describe('periods, summaries and follow-ups', () => {
@@ -109,6 +110,23 @@ describe('periods, summaries and follow-ups', () => {
       `SELECT kind FROM follow_up WHERE source_entity = 'exceedance' AND title LIKE '%OF-MASS, 2026-04-14%' ORDER BY kind`,
     );
     expect(opened.map((f: { kind: string }) => f.kind)).toEqual(['notify-control-authority', 'repeat-sampling']);
+  });
+
+  it('lists periods without writing any: they are created with the permit, and by the hourly tick as the calendar turns', async () => {
+    // A permit that reached the database without the API (say, restored), so it has no periods yet.
+    const [permit] = await t.dataSource.query(
+      `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days, non_detect_policy, mass_loading_factor, snc_window)
+       VALUES ($1, 'pretreatment', 'TICK-1', 'Control authority', '2026-01-01', 'quarterly', 30, 'zero', 8.34, 'calendar-halves') RETURNING id`,
+      [ids.north],
+    );
+    const count = async () => (await t.dataSource.query('SELECT count(*)::int AS n FROM reporting_period WHERE permit_id = $1', [permit.id]))[0].n;
+    const auditor = await t.sessionFor('auditor@decant.test');
+    const listed = await request(t.app).get(`/api/periods?permitId=${permit.id}`).set('cookie', auditor).expect(200);
+    expect(listed.body.items).toEqual([]);
+    expect(await count()).toBe(0);
+    await ensureAllPeriods(t.dataSource);
+    // Quarters from 2026-01-01 up to the one running today: at least the four of 2026 (this runs in December 2026 or later).
+    expect(await count()).toBeGreaterThanOrEqual(4);
   });
 
   it('closes a follow-up with a note, in the trail, once', async () => {

@@ -9,7 +9,7 @@ import { isoDate } from '../../contracts/fields.js';
 import { PeriodSummary } from '../../contracts/periods.js';
 import { invalid } from '../../errors/app-error.js';
 import { recordTrail } from '../trail/trail.js';
-import { compileAndSave, ensurePeriods, findPeriod, listPeriods, summarise } from './periods.service.js';
+import { compileAndSave, findPeriod, listPeriods, summarise } from './periods.service.js';
 
 const ListQuery = z.object({ siteId: z.uuid('Not a valid id').optional(), permitId: z.uuid('Not a valid id').optional() });
 const IdParams = z.object({ id: z.uuid('Not a valid id') });
@@ -23,8 +23,6 @@ export function periodsRoutes(dataSource: DataSource): Router {
     const { siteId, permitId } = res.locals.query as z.infer<typeof ListQuery>;
     if (siteId) assertSiteAllowed(user, siteId);
     const siteIds = siteId ? [siteId] : user.siteIds;
-    const permits = await dataSource.query('SELECT id FROM permit WHERE site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR id = $2)', [siteIds, permitId ?? null]);
-    for (const permit of permits) await ensurePeriods(dataSource, permit.id);
     res.json({ items: await listPeriods(dataSource, siteIds, permitId) });
   });
 

@@ -39,7 +39,7 @@ const record = (row: Record<string, any>): PeriodRecord => ({
   permitKind: row.permit_kind, permitNumber: row.permit_number, lateReportDays: row.late_report_days, submittedOn: row.submitted_on, today: row.today,
 });
 
-/** Creates the permit's periods up to the one running today; safe to call on every read. */
+/** Creates the permit's periods up to the one running today; idempotent. */
 export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
   const [permit] = await db.query('SELECT id, site_id, effective_from::text, effective_to::text, reporting_frequency, report_due_days FROM permit WHERE id = $1', [permitId]);
   if (!permit) return;
@@ -53,6 +53,14 @@ export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
      SELECT $1, * FROM unnest($2::date[], $3::date[], $4::date[]) ON CONFLICT (permit_id, starts_on) DO NOTHING`,
     [permitId, periods.map((p) => p.startsOn), periods.map((p) => p.endsOn), periods.map((p) => p.dueOn)],
   );
+}
+
+/**
+ * Every permit's periods up to today. Run when the app starts and every hour after, so a new
+ * period exists once it begins without any read having to write.
+ */
+export async function ensureAllPeriods(db: Db): Promise<void> {
+  for (const permit of await db.query('SELECT id FROM permit')) await ensurePeriods(db, permit.id);
 }
 
 export async function findPeriod(db: Db, id: string): Promise<PeriodRecord | null> {

@@ -12,6 +12,7 @@ import { validate } from '../../middleware/validate.js';
 import { createTraced, deleteTraced, updateTraced } from '../trail/traced-writes.js';
 import { recheckResultsAtPoint } from '../lab/lab-flags.service.js';
 import { limitTarget, permitTarget } from './permit.views.js';
+import { ensurePeriods } from '../periods/periods.service.js';
 
 const IdParams = z.object({ id: z.uuid('Not a valid id') });
 const LimitParams = IdParams.extend({ limitId: z.uuid('Not a valid id') });
@@ -44,7 +45,7 @@ export function permitsRoutes(dataSource: DataSource): Router {
   router.post('/', requirePermission('setup.manage'), validate({ body: CreatePermitRequest }), async (_req, res) => {
     assertSiteAllowed(currentUser(res), res.locals.body.siteId);
     const created = await uniquely(
-      () => createTraced(dataSource, currentUser(res), permitTarget, res.locals.body),
+      () => createTraced(dataSource, currentUser(res), permitTarget, res.locals.body, { afterWrite: (manager, row) => ensurePeriods(manager, String(row.id)) }),
       'number',
       'This site already has a permit with this number',
     );
@@ -58,6 +59,8 @@ export function permitsRoutes(dataSource: DataSource): Router {
       const to = res.locals.body.effectiveTo === undefined ? before.effectiveTo : res.locals.body.effectiveTo;
       if (to && from && to < from) throw invalid({ effectiveTo: 'Ends before it starts' });
     });
+    // New dates or a new frequency may add periods; existing ones stay as they were reported.
+    await ensurePeriods(dataSource, res.locals.params.id);
     res.json(updated);
   });
 
