@@ -78,6 +78,16 @@ describe('non-detects', () => {
     expect(row(summary, 'monthly-average').computedValue).toBeCloseTo(expected, 10);
     expect(summary.nonDetectPolicy).toBe(policy);
   });
+  it('fall back to Method 1664\'s MDL of 1.4 mg/L (§1.6) for oil and grease, and to the reported limit for another parameter, when no MDL is reported', () => {
+    const mdlPolicy = { permit: { kind: 'pretreatment' as const, nonDetectPolicy: 'mdl' as const, massLoadingFactor: 8.34, dailyMaxAppliesToEachGrab: false, sncWindow: 'calendar-halves' as const } };
+    const withoutMdl = (extra: Partial<Measurement> = {}) => m('2026-01-20', 2, { qualifier: '<', mdl: null, ml: null, ...extra });
+    const og = compilePeriod(input([limit('monthly-average', 50)], [m('2026-01-05', 10), withoutMdl()], mdlPolicy));
+    expect(row(og, 'monthly-average').monthlyValues[0]!.value).toBeCloseTo((10 + 1.4) / 2, 10);
+    const zinc = { parameterId: 'ZN', parameterName: 'Zinc', sncReviewFactor: 1.2, method1664: false };
+    const other = compilePeriod(input([limit('monthly-average', 50, zinc)], [m('2026-01-05', 10, { parameterId: 'ZN' }), withoutMdl({ parameterId: 'ZN' })], mdlPolicy));
+    expect(row(other, 'monthly-average').monthlyValues[0]!.value).toBeCloseTo((10 + 2) / 2, 10);
+  });
+
   it('report a statistic whose inputs are all non-detects as "<ML"', () => {
     const summary = compilePeriod(input([limit('monthly-average', 50), limit('daily-maximum', 100)], [nd('2026-01-05'), nd('2026-01-20')]));
     expect(row(summary, 'monthly-average').computedValue).toBe('<ML');

@@ -3,10 +3,12 @@ import type { Figure, Measurement, NonDetectPolicy } from './types.js';
 
 /**
  * The number a non-detect stands for in an average, as the permit says (a permit setting;
- * the summary states which). Without a reported MDL/ML, Method 1664's 1.4 / 5.0 mg/L apply.
+ * the summary states which). Without a reported MDL the method's applies (1.4 mg/L for Method
+ * 1664, `methodMdl`); without either, and without an ML, the reported "<" limit stands in
+ * (common practice, no published source).
  */
-export function nonDetectValue(measurement: Measurement, policy: NonDetectPolicy): number {
-  const mdl = measurement.mdl ?? 1.4;
+export function nonDetectValue(measurement: Measurement, policy: NonDetectPolicy, methodMdl: number | null = null): number {
+  const mdl = measurement.mdl ?? methodMdl ?? measurement.value;
   const ml = measurement.ml ?? measurement.value;
   switch (policy) {
     case 'zero':
@@ -35,7 +37,13 @@ export interface DailyDischarge {
  * 40 CFR 122.2, "daily discharge": for a concentration, the average of the measurements taken
  * during the calendar day (the site's local day). Returned in day order.
  */
-export function dailyDischarges(measurements: Measurement[], policy: NonDetectPolicy, flowOn: (day: string) => number | undefined, factor: number): DailyDischarge[] {
+export function dailyDischarges(
+  measurements: Measurement[],
+  policy: NonDetectPolicy,
+  flowOn: (day: string) => number | undefined,
+  factor: number,
+  methodMdl: number | null = null,
+): DailyDischarge[] {
   // Results usually arrive in day order already: group runs of one day, sorting only when needed.
   const ordered = measurements.some((m, i) => i > 0 && m.day < measurements[i - 1]!.day)
     ? [...measurements].sort((a, b) => (a.day < b.day ? -1 : a.day > b.day ? 1 : 0))
@@ -49,7 +57,7 @@ export function dailyDischarges(measurements: Measurement[], policy: NonDetectPo
     let allNonDetect = true;
     for (; end < ordered.length && ordered[end]!.day === day; end++) {
       const m = ordered[end]!;
-      if (m.qualifier === '<') sum += nonDetectValue(m, policy);
+      if (m.qualifier === '<') sum += nonDetectValue(m, policy, methodMdl);
       else {
         sum += m.value;
         allNonDetect = false;

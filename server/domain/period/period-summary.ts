@@ -1,3 +1,4 @@
+import { METHOD_DETECTION_LIMIT } from '../method-1664.js';
 import { dailyDischarges, type DailyDischarge } from './daily-discharges.js';
 import { toLimitUnit, type FlowOn, type ToLimitUnit } from './limit-units.js';
 import { monitoringChecker, type MonitoringCheck } from './monitoring.js';
@@ -155,7 +156,8 @@ function contextOf(input: PeriodInput): Context {
     let days = discharges.get(key);
     if (!days) {
       const flowOnDay = (day: string) => flowOn(limit.dischargePointId, day);
-      discharges.set(key, (days = dailyDischarges(measurements, input.permit.nonDetectPolicy, flowOnDay, input.permit.massLoadingFactor)));
+      const methodMdl = limit.method1664 ? METHOD_DETECTION_LIMIT : null;
+      discharges.set(key, (days = dailyDischarges(measurements, input.permit.nonDetectPolicy, flowOnDay, input.permit.massLoadingFactor, methodMdl)));
     }
     return days;
   };
