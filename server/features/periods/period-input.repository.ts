@@ -1,6 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { sncWindows } from '../../domain/period/significant-noncompliance.js';
-import type { LimitInput, Measurement, PeriodInput } from '../../domain/period/types.js';
+import type { LimitInput, Measurement, PeriodInput, PermitSettings } from '../../domain/period/types.js';
 import { queryArrays } from '../../db/array-rows.js';
 import { inParallel } from '../../db/in-parallel.js';
 import { convert, measuredUnitFor } from '../../domain/units.js';
@@ -18,6 +18,8 @@ export interface PeriodRecord {
   status: string;
   permitKind: 'pretreatment' | 'npdes';
   permitNumber: string;
+  /** How the permit says its figures are worked out, read with the period. */
+  settings: PermitSettings;
   lateReportDays: number;
   submittedOn: string | null;
   /** The site's today, read with the period so no caller asks again. */
@@ -40,15 +42,11 @@ function inUnit(text: string | null, unit: string, target: string): number | nul
  * (through the point/day indexes), each in the base unit of what is measured.
  */
 export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<PeriodInput> {
-  const [[permit], limitRows] = await inParallel(
-    db,
-    () => db.query('SELECT * FROM permit WHERE id = $1', [period.permitId]),
-    () => db.query(
-      `SELECT l.*, d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor, p.fraction
-         FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id JOIN parameter p ON p.id = l.parameter_id
-        WHERE l.permit_id = $1 ORDER BY d.code, p.name, l.statistic`,
-      [period.permitId],
-    ),
+  const limitRows = await db.query(
+    `SELECT l.*, d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor, p.fraction
+       FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id JOIN parameter p ON p.id = l.parameter_id
+      WHERE l.permit_id = $1 ORDER BY d.code, p.name, l.statistic`,
+    [period.permitId],
   );
   const limits: LimitInput[] = limitRows.map((row: Record<string, any>) => ({
     id: row.id, dischargePointId: row.discharge_point_id, pointCode: row.point_code, parameterId: row.parameter_id, parameterName: row.parameter_name,
@@ -56,7 +54,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     reportedDecimals: row.reported_decimals,
     statistic: row.statistic, value: Number(row.value), unit: row.unit, frequencyCount: row.frequency_count, frequencyPer: row.frequency_per,
   }));
-  const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, permit.snc_window);
+  const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, period.settings.sncWindow);
   const from = [period.startsOn, ...windows.map((w) => w.start)].sort()[0]!;
   const pointIds = [...new Set(limits.map((l) => l.dischargePointId))];
   const parameterIds = [...new Set(limits.map((l) => l.parameterId))];
@@ -96,20 +94,20 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
 
   const flows = flowRows.map((row: Record<string, any>) => ({ dischargePointId: row.discharge_point_id, day: row.day, mgd: convert(Number(row.value), row.unit, 'MGD')! }));
   // Flow limits are checked against the flow readings themselves.
-  const flowPairs = new Map(limits.filter((l) => !l.isPollutant).map((l) => [`${l.dischargePointId}|${l.parameterId}`, l]));
-  for (const limit of flowPairs.values()) {
-    for (const row of flowRows.filter((f: Record<string, any>) => f.discharge_point_id === limit.dischargePointId)) {
+  const flowParametersAt = new Map<string, string[]>();
+  for (const limit of limits.filter((l) => !l.isPollutant)) {
+    const parameters = flowParametersAt.get(limit.dischargePointId) ?? [];
+    if (!parameters.includes(limit.parameterId)) flowParametersAt.set(limit.dischargePointId, [...parameters, limit.parameterId]);
+  }
+  flowRows.forEach((row: Record<string, any>, i: number) => {
+    for (const parameterId of flowParametersAt.get(row.discharge_point_id) ?? []) {
       measurements.push({
-        resultId: row.id, certificateId: '', dischargePointId: row.discharge_point_id, parameterId: limit.parameterId, day: row.day,
-        qualifier: null, value: convert(Number(row.value), row.unit, 'MGD')!, mdl: null, ml: null,
+        resultId: row.id, certificateId: '', dischargePointId: row.discharge_point_id, parameterId, day: row.day, qualifier: null, value: flows[i]!.mgd, mdl: null, ml: null,
       });
     }
-  }
+  });
   return {
-    permit: {
-      kind: permit.kind, nonDetectPolicy: permit.non_detect_policy, massLoadingFactor: Number(permit.mass_loading_factor),
-      dailyMaxAppliesToEachGrab: permit.daily_max_applies_to_each_grab, sncWindow: permit.snc_window,
-    },
+    permit: period.settings,
     period: { start: period.startsOn, end: period.endsOn, asOf: period.today },
     limits,
     measurements,

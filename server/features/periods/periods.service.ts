@@ -32,11 +32,16 @@ export const summaryCautions = [
 ];
 
 const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at,
-    rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, p.late_report_days, (now() AT TIME ZONE s.time_zone)::date::text AS today
+    rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, p.late_report_days, p.non_detect_policy, p.mass_loading_factor,
+    p.daily_max_applies_to_each_grab, p.snc_window, (now() AT TIME ZONE s.time_zone)::date::text AS today
   FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
 const record = (row: Record<string, any>): PeriodRecord => ({
   id: row.id, permitId: row.permit_id, siteId: row.site_id, timeZone: row.time_zone, startsOn: row.starts_on, endsOn: row.ends_on, dueOn: row.due_on, status: row.status,
   permitKind: row.permit_kind, permitNumber: row.permit_number, lateReportDays: row.late_report_days, submittedOn: row.submitted_on, today: row.today,
+  settings: {
+    kind: row.permit_kind, nonDetectPolicy: row.non_detect_policy, massLoadingFactor: Number(row.mass_loading_factor),
+    dailyMaxAppliesToEachGrab: row.daily_max_applies_to_each_grab, sncWindow: row.snc_window,
+  },
 });
 
 /** Creates the permit's periods up to the one running today; idempotent. */
@@ -73,7 +78,11 @@ export async function listPeriods(db: Db, siteIds: string[], permitId?: string) 
     `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY p.number, rp.starts_on DESC`,
     [siteIds, permitId ?? null],
   );
-  return rows.map((row: Record<string, any>) => ({ ...record(row), compiledAt: row.compiled_at?.toISOString() ?? null }));
+  // The list answers what a period is, not how its permit computes (that is in the summary).
+  return rows.map((row: Record<string, any>) => {
+    const { settings: _settings, ...period } = record(row);
+    return { ...period, compiledAt: row.compiled_at?.toISOString() ?? null };
+  });
 }
 
 /** Oil collected and shipped in the period and on hand at its end, follow-ups open at the site, and results the lab checks flagged. */
@@ -120,12 +129,17 @@ export async function compileWithin(manager: EntityManager, user: Pick<CurrentUs
   const period = await findPeriod(manager, periodId);
   if (!period) throw notFound('Period');
   const summary = await summarise(manager, period);
+  // The user became aware of a result when its certificate was entered: one read for all exceedances.
+  const certificateIds = [...new Set(summary.rows.flatMap((row) => row.exceedances.map((e) => e.certificateIds[0]).filter((id): id is string => Boolean(id))))];
+  const enteredAt = new Map<string, Date>(
+    certificateIds.length === 0 ? [] : (await manager.query('SELECT id, created_at FROM lab_certificate WHERE id = ANY($1::uuid[])', [certificateIds]))
+      .map((row: { id: string; created_at: Date }) => [row.id, row.created_at]),
+  );
   for (const row of summary.rows) {
     for (const exceedance of row.exceedances) {
-      const [aware] = exceedance.certificateIds[0]
-        ? await manager.query('SELECT created_at FROM lab_certificate WHERE id = $1', [exceedance.certificateIds[0]])
-        : [{ created_at: new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`) }];
-      for (const obligation of violationObligations(period.permitKind, row.statistic, aware.created_at)) {
+      const awareAt = enteredAt.get(exceedance.certificateIds[0] ?? '')
+        ?? new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`);
+      for (const obligation of violationObligations(period.permitKind, row.statistic, awareAt)) {
         await openFollowUp(manager, {
           // Keyed by point, parameter and day (or month): one sample over a concentration and a
           // loading limit at once is one violation to report, not two.
