@@ -5,6 +5,7 @@ import { isoDate } from '../../contracts/fields.js';
 import { PageQuery } from '../../contracts/paging.js';
 import { currentUser, type CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed } from '../../auth/site-access.js';
+import { queryPage } from '../../db/page.js';
 import { invalid } from '../../errors/app-error.js';
 import { requirePermission } from '../../middleware/require-permission.js';
 import { singleUpload } from '../../middleware/upload.js';
@@ -47,18 +48,14 @@ export function flowReadingsRoutes(dataSource: DataSource): Router {
   router.get('/', requirePermission('lab.read'), validate({ query: ListQuery }), async (_req, res) => {
     const query = res.locals.query as z.infer<typeof ListQuery>;
     assertSiteAllowed(currentUser(res), query.siteId);
-    const where = `d.site_id = $1 AND ($2::date IS NULL OR f.day >= $2) AND ($3::date IS NULL OR f.day <= $3)`;
-    const params = [query.siteId, query.from ?? null, query.to ?? null];
-    const rows = await dataSource.query(
-      `SELECT f.id, f.discharge_point_id, d.code AS point_code, f.day::text, f.value, f.unit FROM flow_reading f JOIN discharge_point d ON d.id = f.discharge_point_id
-        WHERE ${where} ORDER BY f.day DESC, d.code LIMIT $4 OFFSET $5`,
-      [...params, query.pageSize, (query.page - 1) * query.pageSize],
-    );
-    const [{ count }] = await dataSource.query(`SELECT count(*)::int AS count FROM flow_reading f JOIN discharge_point d ON d.id = f.discharge_point_id WHERE ${where}`, params);
-    res.json({
-      items: rows.map((r: Record<string, any>) => ({ id: r.id, dischargePointId: r.discharge_point_id, pointCode: r.point_code, day: r.day, value: Number(r.value), unit: r.unit })),
-      total: count, page: query.page, pageSize: query.pageSize,
-    });
+    const from = 'FROM flow_reading f JOIN discharge_point d ON d.id = f.discharge_point_id';
+    res.json(await queryPage(dataSource, {
+      select: `SELECT f.id, f.discharge_point_id, d.code AS point_code, f.day::text, f.value, f.unit ${from}`,
+      countFrom: from,
+      where: `d.site_id = $1 AND ($2::date IS NULL OR f.day >= $2) AND ($3::date IS NULL OR f.day <= $3)`,
+      order: 'f.day DESC, d.code',
+      params: [query.siteId, query.from ?? null, query.to ?? null],
+    }, query, (r: Record<string, any>) => ({ id: r.id, dischargePointId: r.discharge_point_id, pointCode: r.point_code, day: r.day, value: Number(r.value), unit: r.unit })));
   });
 
   router.post('/', requirePermission('lab.write'), validate({ body: FlowReadingRequest }), async (_req, res) => {

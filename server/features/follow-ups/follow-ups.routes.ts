@@ -4,6 +4,7 @@ import { z } from 'zod';
 import { PageQuery } from '../../contracts/paging.js';
 import { currentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
+import { queryPage } from '../../db/page.js';
 import { conflict, notFound } from '../../errors/app-error.js';
 import { singleUpload } from '../../middleware/upload.js';
 import { checkUpload, sendStoredFile, storeFile } from '../files/stored-files.js';
@@ -30,14 +31,13 @@ export function followUpsRoutes(dataSource: DataSource): Router {
     const user = currentUser(res);
     const query = res.locals.query as z.infer<typeof ListQuery>;
     if (query.siteId) assertSiteAllowed(user, query.siteId);
-    const where = `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`;
-    const params = [query.siteId ? [query.siteId] : user.siteIds, query.status ?? null];
-    const rows = await dataSource.query(
-      `SELECT * FROM follow_up WHERE ${where} ORDER BY (status = 'open') DESC, due_at ${query.sortDesc ? 'DESC' : 'ASC'} LIMIT $3 OFFSET $4`,
-      [...params, query.pageSize, (query.page - 1) * query.pageSize],
-    );
-    const [{ count }] = await dataSource.query(`SELECT count(*)::int AS count FROM follow_up WHERE ${where}`, params);
-    res.json({ items: rows.map(view), total: count, page: query.page, pageSize: query.pageSize });
+    res.json(await queryPage(dataSource, {
+      select: 'SELECT * FROM follow_up',
+      countFrom: 'FROM follow_up',
+      where: `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`,
+      order: `(status = 'open') DESC, due_at ${query.sortDesc ? 'DESC' : 'ASC'}`,
+      params: [query.siteId ? [query.siteId] : user.siteIds, query.status ?? null],
+    }, query, view));
   });
 
   // Closed with a note, and optionally a file (the notice sent, a lab report): JSON or multipart.

@@ -3,6 +3,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { CertificateDetail, CertificateSummary, ResultRow, ResultView, StoredFileView } from '../../contracts/lab.js';
 import type { Page } from '../../contracts/paging.js';
 import { toMethodPrecision } from '../../domain/method-1664.js';
+import { queryPage } from '../../db/page.js';
 
 type Db = DataSource | EntityManager;
 const num = (value: string | null) => (value === null ? null : Number(value));
@@ -110,17 +111,17 @@ export async function pageCertificates(
   siteIds: string[],
   query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; search?: string; flagged?: 'true' | 'false' },
 ): Promise<Page<CertificateSummary>> {
-  const where = `c.site_id = ANY($1::uuid[])
-    AND ($2::text IS NULL OR c.report_number ILIKE $2 OR c.lab_name ILIKE $2)
-    AND ($3::boolean IS NULL OR (jsonb_array_length(c.flags) > 0) = $3)`;
   const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
   const flagged = query.flagged === undefined ? null : query.flagged === 'true';
-  const order = `${certificateSorts[query.sortBy ?? ''] ?? 'c.received_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, c.id`;
-  const rows = await db.query(`${summarySelect} WHERE ${where} ORDER BY ${order} LIMIT $4 OFFSET $5`, [
-    siteIds, search, flagged, query.pageSize, (query.page - 1) * query.pageSize,
-  ]);
-  const [{ count }] = await db.query(`SELECT count(*)::int AS count FROM lab_certificate c WHERE ${where}`, [siteIds, search, flagged]);
-  return { items: rows.map(summaryView), total: count, page: query.page, pageSize: query.pageSize };
+  return queryPage(db, {
+    select: summarySelect,
+    countFrom: 'FROM lab_certificate c',
+    where: `c.site_id = ANY($1::uuid[])
+      AND ($2::text IS NULL OR c.report_number ILIKE $2 OR c.lab_name ILIKE $2)
+      AND ($3::boolean IS NULL OR (jsonb_array_length(c.flags) > 0) = $3)`,
+    order: `${certificateSorts[query.sortBy ?? ''] ?? 'c.received_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, c.id`,
+    params: [siteIds, search, flagged],
+  }, query, summaryView);
 }
 
 const resultSorts: Record<string, string> = {
@@ -135,22 +136,19 @@ export async function pageResults(
     from?: string; to?: string; flag?: string;
   },
 ): Promise<Page<ResultRow>> {
-  const where = `c.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR ls.discharge_point_id = $2) AND ($3::uuid IS NULL OR lr.parameter_id = $3)
-    AND ($4::date IS NULL OR ls.collected_on >= $4) AND ($5::date IS NULL OR ls.collected_on <= $5)
-    AND ($6::text IS NULL OR lr.flag_codes @> ARRAY[$6]::text[])`;
   const from = `FROM lab_result lr JOIN lab_sample ls ON ls.id = lr.sample_id JOIN lab_certificate c ON c.id = ls.certificate_id
     JOIN discharge_point d ON d.id = ls.discharge_point_id JOIN parameter p ON p.id = lr.parameter_id
     JOIN site s ON s.id = c.site_id LEFT JOIN qc_batch q ON q.id = lr.qc_batch_id`;
-  const params = [siteIds, query.dischargePointId ?? null, query.parameterId ?? null, query.from ?? null, query.to ?? null, query.flag ?? null];
-  const order = `${resultSorts[query.sortBy ?? ''] ?? 'ls.collected_at'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, lr.id`;
-  const rows = await db.query(
-    `SELECT lr.*, p.name AS parameter_name, p.fraction, q.code AS qc_batch_code, c.id AS certificate_id, c.report_number, c.site_id,
-            d.code AS point_code, ls.collected_at, s.time_zone
-       ${from} WHERE ${where} ORDER BY ${order} LIMIT $7 OFFSET $8`,
-    [...params, query.pageSize, (query.page - 1) * query.pageSize],
-  );
-  const [{ count }] = await db.query(`SELECT count(*)::int AS count ${from} WHERE ${where}`, params);
-  const items = rows.map((row: Record<string, any>) => ({
+  return queryPage(db, {
+    select: `SELECT lr.*, p.name AS parameter_name, p.fraction, q.code AS qc_batch_code, c.id AS certificate_id, c.report_number, c.site_id,
+            d.code AS point_code, ls.collected_at, s.time_zone ${from}`,
+    countFrom: from,
+    where: `c.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR ls.discharge_point_id = $2) AND ($3::uuid IS NULL OR lr.parameter_id = $3)
+      AND ($4::date IS NULL OR ls.collected_on >= $4) AND ($5::date IS NULL OR ls.collected_on <= $5)
+      AND ($6::text IS NULL OR lr.flag_codes @> ARRAY[$6]::text[])`,
+    order: `${resultSorts[query.sortBy ?? ''] ?? 'ls.collected_at'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, lr.id`,
+    params: [siteIds, query.dischargePointId ?? null, query.parameterId ?? null, query.from ?? null, query.to ?? null, query.flag ?? null],
+  }, query, (row: Record<string, any>) => ({
     ...resultView(row, row.time_zone),
     certificateId: row.certificate_id,
     reportNumber: row.report_number,
@@ -158,5 +156,4 @@ export async function pageResults(
     dischargePointCode: row.point_code,
     collectedLocal: local(row.collected_at, row.time_zone)!,
   }));
-  return { items, total: count, page: query.page, pageSize: query.pageSize };
 }

@@ -1,6 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { OilLogEntryView } from '../../contracts/oil.js';
 import type { Page } from '../../contracts/paging.js';
+import { queryPage } from '../../db/page.js';
 
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
@@ -29,13 +30,14 @@ export async function pageOilLog(
   siteIds: string[],
   query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; equipmentId?: string; from?: string; to?: string },
 ): Promise<Page<OilLogEntryView>> {
-  const where = `o.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR o.equipment_id = $2)
-    AND ($3::date IS NULL OR o.collected_on >= $3) AND ($4::date IS NULL OR o.collected_on <= $4)`;
-  const params = [siteIds, query.equipmentId ?? null, query.from ?? null, query.to ?? null];
-  const order = `${sorts[query.sortBy ?? ''] ?? 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`;
-  const rows = await db.query(`${select} WHERE ${where} ORDER BY ${order} LIMIT $5 OFFSET $6`, [...params, query.pageSize, (query.page - 1) * query.pageSize]);
-  const [{ count }] = await db.query(`SELECT count(*)::int AS count FROM oil_log_entry o WHERE ${where}`, params);
-  return { items: rows.map(view), total: count, page: query.page, pageSize: query.pageSize };
+  return queryPage(db, {
+    select,
+    countFrom: 'FROM oil_log_entry o',
+    where: `o.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR o.equipment_id = $2)
+      AND ($3::date IS NULL OR o.collected_on >= $3) AND ($4::date IS NULL OR o.collected_on <= $4)`,
+    order: `${sorts[query.sortBy ?? ''] ?? 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`,
+    params: [siteIds, query.equipmentId ?? null, query.from ?? null, query.to ?? null],
+  }, query, view);
 }
 
 /** Litres collected per day, ISO week or month (the site's local dates). */

@@ -2,6 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { Page } from '../../contracts/paging.js';
 import type { ShipmentView } from '../../contracts/shipments.js';
 import { daysLeft, manifestDeadlines, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
+import { queryPage } from '../../db/page.js';
 
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
@@ -52,14 +53,13 @@ export async function pageShipments(
   siteIds: string[],
   query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; status?: string; search?: string },
 ): Promise<Page<ShipmentView>> {
-  const where = `s.site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR ${statusSql(4)} = $2)
-    AND ($3::text IS NULL OR s.document_number ILIKE $3 OR s.transporter_name ILIKE $3 OR s.receiver_name ILIKE $3)`;
   const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
-  const params = [siteIds, query.status ?? null, search, ...firstStepParams()];
-  const order = `${sorts[query.sortBy ?? ''] ?? 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`;
-  const rows = await db.query(`${select(4)} WHERE ${where} ORDER BY ${order} LIMIT $7 OFFSET $8`, [
-    ...params, query.pageSize, (query.page - 1) * query.pageSize,
-  ]);
-  const [{ count }] = await db.query(`SELECT count(*)::int AS count FROM shipment s JOIN site st ON st.id = s.site_id WHERE ${where}`, params);
-  return { items: rows.map(view), total: count, page: query.page, pageSize: query.pageSize };
+  return queryPage(db, {
+    select: select(4),
+    countFrom: 'FROM shipment s JOIN site st ON st.id = s.site_id',
+    where: `s.site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR ${statusSql(4)} = $2)
+      AND ($3::text IS NULL OR s.document_number ILIKE $3 OR s.transporter_name ILIKE $3 OR s.receiver_name ILIKE $3)`,
+    order: `${sorts[query.sortBy ?? ''] ?? 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`,
+    params: [siteIds, query.status ?? null, search, ...firstStepParams()],
+  }, query, view);
 }

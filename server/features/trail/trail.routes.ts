@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { queryPage } from '../../db/page.js';
 import type { DataSource } from 'typeorm';
 import { TrailQuery, type TrailEntryView } from '../../contracts/trail.js';
 import { currentUser } from '../../auth/current-user.js';
@@ -26,16 +27,14 @@ export function trailRoutes(dataSource: DataSource): Router {
     // Entries of a site: whoever may see the site. Entries of no site (people, sign-ins):
     // administrators and auditors.
     const seesSiteless = user.role === 'administrator' || user.role === 'auditor';
-    const params = [user.siteIds, seesSiteless, query.entity ?? null, query.siteId ?? null];
-    const where = `(site_id = ANY($1::uuid[]) OR (site_id IS NULL AND $2))
-      AND ($3::text IS NULL OR entity = $3) AND ($4::uuid IS NULL OR site_id = $4)`;
-    const rows: TrailRow[] = await dataSource.query(
-      `SELECT * FROM trail_entry WHERE ${where} ORDER BY occurred_at ${query.sortDesc === false && query.sortBy === 'occurredAt' ? 'ASC' : 'DESC'}, id DESC
-        LIMIT $5 OFFSET $6`,
-      [...params, query.pageSize, (query.page - 1) * query.pageSize],
-    );
-    const [{ count }] = await dataSource.query(`SELECT count(*)::int AS count FROM trail_entry WHERE ${where}`, params);
-    const items: TrailEntryView[] = rows.map((row) => ({
+    res.json(await queryPage(dataSource, {
+      select: 'SELECT * FROM trail_entry',
+      countFrom: 'FROM trail_entry',
+      where: `(site_id = ANY($1::uuid[]) OR (site_id IS NULL AND $2))
+        AND ($3::text IS NULL OR entity = $3) AND ($4::uuid IS NULL OR site_id = $4)`,
+      order: `occurred_at ${query.sortDesc === false && query.sortBy === 'occurredAt' ? 'ASC' : 'DESC'}, id DESC`,
+      params: [user.siteIds, seesSiteless, query.entity ?? null, query.siteId ?? null],
+    }, query, (row: TrailRow): TrailEntryView => ({
       id: String(row.id),
       occurredAt: row.occurred_at.toISOString(),
       actorEmail: row.actor_email,
@@ -45,8 +44,7 @@ export function trailRoutes(dataSource: DataSource): Router {
       siteId: row.site_id,
       before: row.before,
       after: row.after,
-    }));
-    res.json({ items, total: count, page: query.page, pageSize: query.pageSize });
+    })));
   });
 
   return router;
