@@ -33,4 +33,12 @@ describe('status words and icons', () => {
     expect(wrapper.find('[data-flag="holding-time"] .v-icon').exists()).toBe(true);
     wrapper.unmount();
   });
+
+  it('says "No findings" when the only flags are notes it hides, instead of leaving the cell blank', () => {
+    const wrapper = mountWithApp(FlagChips, {
+      props: { flags: [{ code: 'excess-precision', severity: 'info', message: 'Shown as 23.5 mg/L', source: 'EPA Method 1664 Rev. B §12.3' }], showClear: true, hideInfo: true },
+    });
+    expect(wrapper.text()).toContain('No findings (notes only)');
+    wrapper.unmount();
+  });
 });
