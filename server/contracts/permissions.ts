@@ -33,6 +33,9 @@ export const actions = [
   'follow-ups.close',
   'trail.read',
   'tools.use',
+  'oil-log.correct-any',
+  'shipments.change-after-signed-copy',
+  'trail.read-siteless',
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -56,6 +59,12 @@ export const permissionTable: Record<Action, readonly Role[]> = {
   'follow-ups.close': ['coordinator'],
   'trail.read': ['administrator', 'coordinator', 'auditor'],
   'tools.use': recordKeepers,
+  // Operators correct only their own entries, within their first 24 hours (oil-log.service).
+  'oil-log.correct-any': ['coordinator'],
+  // Once the hauler's signed copy is back, the papers are the coordinator's to change.
+  'shipments.change-after-signed-copy': ['coordinator'],
+  // Trail entries of no site (people, sign-ins).
+  'trail.read-siteless': ['administrator', 'auditor'],
 };
 
 export function can(role: Role | null | undefined, action: Action): boolean {
@@ -64,4 +73,33 @@ export function can(role: Role | null | undefined, action: Action): boolean {
 
 export function permissionsOf(role: Role | null | undefined): Action[] {
   return actions.filter((action) => can(role, action));
+}
+
+/** An author's own correction window for an oil-log entry; after it a reason is required. */
+export const OIL_LOG_AUTHOR_WINDOW_MS = 24 * 3600 * 1000;
+
+/** Where a role lands after sign-in: the operator's work is the oil log, everyone else's the overview. */
+export type LandingPage = 'oil-log' | 'overview';
+const landingPages: Record<Role, LandingPage> = {
+  administrator: 'overview',
+  coordinator: 'overview',
+  operator: 'oil-log',
+  auditor: 'overview',
+};
+export function landingPageOf(role: Role | null | undefined): LandingPage {
+  return role ? landingPages[role] : 'overview';
+}
+
+/** Whether a user may correct an oil-log entry: their own within its first day, any entry with `oil-log.correct-any`. */
+export function mayCorrectOilLogEntry(
+  user: { id: string; role: Role | null | undefined },
+  entry: { enteredBy: string | null; createdAt: string },
+  now: Date = new Date(),
+): { allowed: boolean; reasonRequired: boolean; refusal?: string } {
+  const fresh = now.getTime() - new Date(entry.createdAt).getTime() < OIL_LOG_AUTHOR_WINDOW_MS;
+  if (can(user.role, 'oil-log.correct-any')) return { allowed: true, reasonRequired: !fresh };
+  if (!can(user.role, 'oil-log.write')) return { allowed: false, reasonRequired: false, refusal: 'You cannot change the oil log' };
+  if (entry.enteredBy !== user.id) return { allowed: false, reasonRequired: false, refusal: 'Operators correct only their own entries' };
+  if (!fresh) return { allowed: false, reasonRequired: false, refusal: 'Entries older than 24 hours are corrected by a coordinator' };
+  return { allowed: true, reasonRequired: false };
 }

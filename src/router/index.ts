@@ -1,4 +1,5 @@
 import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router';
+import { landingPageOf } from '@contracts/permissions.js';
 import { setUnauthenticatedHandler } from '@/api/client';
 import { useSessionStore } from '@/stores/session';
 import { installGuards } from './guards';
@@ -24,7 +25,7 @@ export const routes: RouteRecordRaw[] = [
         name: 'home',
         component: () => import('@/views/OverviewView.vue'),
         // Each role lands where its daily work is; the operator's is the oil log entry.
-        beforeEnter: () => ({ name: useSessionStore().role === 'operator' ? 'oil-log' : 'overview' }),
+        beforeEnter: () => ({ name: landingPageOf(useSessionStore().role) }),
       },
       { path: 'overview', name: 'overview', component: () => import('@/views/OverviewView.vue'), meta: { action: 'sites.read', title: 'Overview' } },
       { path: 'lab', name: 'lab', component: () => import('@/views/LabView.vue'), meta: { action: 'lab.read', title: 'Lab' } },

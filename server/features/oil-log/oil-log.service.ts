@@ -1,6 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { z } from 'zod';
 import type { CreateOilLogRequest, OilLogEntryView, UpdateOilLogRequest } from '../../contracts/oil.js';
+import { mayCorrectOilLogEntry } from '../../contracts/permissions.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteVisible } from '../../auth/site-access.js';
 import { collectionFlags, physicallyPossible, ratingLitresPerHour } from '../../domain/oil-collection.js';
@@ -9,8 +10,6 @@ import { forbidden, invalid, notFound } from '../../errors/app-error.js';
 import { siteToday } from '../site-today.js';
 import { recordTrail } from '../trail/trail.js';
 import { findOilLogEntry } from './oil-log.repository.js';
-
-const OPERATOR_EDIT_WINDOW_MS = 24 * 3600 * 1000;
 
 interface Equipment { id: string; siteId: string; ratedLph: number; active: boolean }
 
@@ -62,11 +61,9 @@ export class OilLogService {
       const before = await findOilLogEntry(manager, id);
       assertSiteVisible(user, before?.siteId, 'Oil log entry');
       const entry = before!;
-      const fresh = now.getTime() - new Date(entry.createdAt).getTime() < OPERATOR_EDIT_WINDOW_MS;
-      if (user.role === 'operator' && (entry.enteredBy !== user.id || !fresh)) {
-        throw forbidden(entry.enteredBy !== user.id ? 'Operators correct only their own entries' : 'Entries older than 24 hours are corrected by a coordinator');
-      }
-      if (user.role === 'coordinator' && !fresh && !request.reason) throw invalid({ reason: 'Say why an entry older than 24 hours changes' });
+      const decision = mayCorrectOilLogEntry(user, entry, now);
+      if (!decision.allowed) throw forbidden(decision.refusal);
+      if (decision.reasonRequired && !request.reason) throw invalid({ reason: 'Say why an entry older than 24 hours changes' });
       const merged = {
         collectedOn: request.collectedOn ?? entry.collectedOn,
         volume: request.volume ?? entry.enteredVolume,

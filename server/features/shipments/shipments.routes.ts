@@ -1,3 +1,4 @@
+import { can } from '../../contracts/permissions.js';
 import { Router } from 'express';
 import type { DataSource, EntityManager } from 'typeorm';
 import { z } from 'zod';
@@ -33,7 +34,7 @@ function columns(merged: Required<Omit<ShipmentBody, 'siteId'>>, changes: Shipme
 
 /** Once the signed copy is in, the papers are the coordinator's to change. */
 function assertMayChange(user: CurrentUser, shipment: ShipmentView): void {
-  if (user.role === 'operator' && shipment.signedCopyReceivedOn) {
+  if (shipment.signedCopyReceivedOn && !can(user.role, 'shipments.change-after-signed-copy')) {
     throw forbidden('The signed copy is in: only a coordinator can change this shipment now');
   }
 }

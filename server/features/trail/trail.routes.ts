@@ -1,3 +1,4 @@
+import { can } from '../../contracts/permissions.js';
 import { Router } from 'express';
 import { queryPage } from '../../db/page.js';
 import type { DataSource } from 'typeorm';
@@ -26,7 +27,7 @@ export function trailRoutes(dataSource: DataSource): Router {
     const query = res.locals.query as TrailQuery;
     // Entries of a site: whoever may see the site. Entries of no site (people, sign-ins):
     // administrators and auditors.
-    const seesSiteless = user.role === 'administrator' || user.role === 'auditor';
+    const seesSiteless = can(user.role, 'trail.read-siteless');
     res.json(await queryPage(dataSource, {
       select: 'SELECT * FROM trail_entry',
       countFrom: 'FROM trail_entry',

@@ -1,3 +1,4 @@
+import { can } from '../../contracts/permissions.js';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { CreateUserRequest, UpdateUserRequest, UserView } from '../../contracts/users.js';
 import type { CurrentUser } from '../../auth/current-user.js';
@@ -31,7 +32,7 @@ export class UsersService {
     return this.dataSource.transaction(async (manager) => {
       const before = await findUserView(manager, id);
       if (!before) throw notFound('User');
-      if (id === actor.id && ((request.role !== undefined && request.role !== 'administrator') || request.active === false)) {
+      if (id === actor.id && ((request.role !== undefined && !can(request.role, 'users.manage')) || request.active === false)) {
         // Otherwise the last administrator could lock everyone out of user management.
         throw invalid({ role: 'You cannot remove your own administrator access' });
       }
