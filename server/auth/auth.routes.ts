@@ -1,17 +1,12 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { z } from 'zod';
+import { SignInQuery } from '../contracts/auth.js';
 import type { Config } from '../config/env.js';
 import { demoPassword, demoPeople } from '../db/seed/demo-scenario.js';
 import { validate } from '../middleware/validate.js';
 import type { OidcRelyingParty } from './oidc.js';
 import { InactiveUserError, provisionUser } from './provision-user.js';
 import { sessionCookieName } from './session.js';
-
-const SignInQuery = z.object({
-  returnTo: z.string().max(500).optional(),
-  loginHint: z.email().max(254).optional(),
-});
 
 /** Only same-app paths: never an absolute or protocol-relative URL (open redirect). */
 function safeReturnPath(value: string | undefined): string {
@@ -30,7 +25,8 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
   });
 
   router.get('/sign-in', validate({ query: SignInQuery }), async (req, res) => {
-    const query = res.locals.query as z.infer<typeof SignInQuery>;
+    // validate() has checked it; parsing again gives its typed value without a cast.
+    const query = SignInQuery.parse(req.query);
     const { url, state, nonce, codeVerifier } = await oidc.authorizationUrl(query.loginHint);
     req.session.pendingSignIn = { state, nonce, codeVerifier, returnTo: safeReturnPath(query.returnTo) };
     req.session.save((error) => (error ? res.status(500).end() : res.redirect(url.toString())));
@@ -39,8 +35,7 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
   router.get('/callback', async (req, res) => {
     const pending = req.session.pendingSignIn;
     delete req.session.pendingSignIn;
-    const fail = (reason: string) =>
-      req.session.save(() => res.redirect(`/sign-in?error=${encodeURIComponent(reason)}`));
+    const fail = (reason: string) => req.session.save(() => res.redirect(`/sign-in?error=${encodeURIComponent(reason)}`));
     if (!pending) return fail('no-sign-in-in-progress');
     let identity;
     try {

@@ -18,13 +18,7 @@ export class OidcRelyingParty {
     const { issuer, clientId, clientSecret, isLocalFake } = this.config.oidc;
     // Plain http is allowed only for the loopback fake provider, never for a configured issuer.
     const options = isLocalFake ? { execute: [client.allowInsecureRequests] } : undefined;
-    this.configuration ??= client.discovery(
-      new URL(issuer),
-      clientId,
-      clientSecret,
-      client.ClientSecretBasic(clientSecret),
-      options,
-    );
+    this.configuration ??= client.discovery(new URL(issuer), clientId, clientSecret, client.ClientSecretBasic(clientSecret), options);
     try {
       return await this.configuration;
     } catch (error) {

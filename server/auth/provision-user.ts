@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
-import { recordTrail } from '../features/trail/trail.js';
-import { User } from '../features/users/user.entity.js';
+import { recordTrail } from '../kernel/trail/trail.js';
+import { User } from '../kernel/people/user.entity.js';
 
 export interface IdentityClaims {
   issuer: string;
@@ -28,12 +28,16 @@ export async function provisionUser(dataSource: DataSource, claims: IdentityClai
     user.subject = subject;
     user.lastSignInAt = new Date();
     user = await manager.save(User, user);
-    await recordTrail(manager, { id: user.id, email: user.email }, {
-      action: isNew ? 'first-sign-in' : 'sign-in',
-      entity: 'user',
-      entityId: user.id,
-      after: isNew ? { email: user.email, name: user.name, role: user.role } : null,
-    });
+    await recordTrail(
+      manager,
+      { id: user.id, email: user.email },
+      {
+        action: isNew ? 'first-sign-in' : 'sign-in',
+        entity: 'user',
+        entityId: user.id,
+        after: isNew ? { email: user.email, name: user.name, role: user.role } : null,
+      },
+    );
     return user;
   });
 }

@@ -1,3 +1,6 @@
+import { z } from 'zod';
+import { uuid } from './fields.js';
+
 /** The columns of a lab-results spreadsheet, one row per result, in template order. */
 export const importColumns = [
   { key: 'lab_name', hint: 'as on the certificate' },
@@ -37,3 +40,6 @@ export interface ImportReport {
   results: number;
   errors: ImportRowError[];
 }
+
+export const ImportTemplateQuery = z.object({ siteId: uuid, format: z.enum(['xlsx', 'csv']).default('xlsx') });
+export type ImportTemplateQuery = z.output<typeof ImportTemplateQuery>;

@@ -150,3 +150,9 @@ export interface ResultRow extends ResultView {
   dischargePointCode: string;
   collectedLocal: string;
 }
+
+export type CertificateListQuery = z.output<typeof CertificateListQuery>;
+export type ResultListQuery = z.output<typeof ResultListQuery>;
+
+export const CertificateFileQuery = z.object({ download: z.enum(['0', '1']).optional() });
+export type CertificateFileQuery = z.output<typeof CertificateFileQuery>;

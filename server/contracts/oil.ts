@@ -3,7 +3,15 @@ import type { Flag } from './flags.js';
 import { isoDate, updateOf, uuid } from './fields.js';
 import { PageQuery } from './paging.js';
 
-export const equipmentKinds = ['belt-skimmer', 'drum-skimmer', 'disc-skimmer', 'tube-skimmer', 'mop-skimmer', 'oil-water-separator', 'sump'] as const;
+export const equipmentKinds = [
+  'belt-skimmer',
+  'drum-skimmer',
+  'disc-skimmer',
+  'tube-skimmer',
+  'mop-skimmer',
+  'oil-water-separator',
+  'sump',
+] as const;
 
 export const EquipmentFields = z.object({
   siteId: uuid,
@@ -118,3 +126,22 @@ export interface UpkeepCheckView extends z.infer<typeof UpkeepCheckRequest> {
   failedCount: number;
   checkedByName: string;
 }
+
+export type CreateEquipmentRequest = z.output<typeof CreateEquipmentRequest>;
+export type UpdateEquipmentRequest = z.output<typeof UpdateEquipmentRequest>;
+export type CreateOilLogRequest = z.output<typeof CreateOilLogRequest>;
+export type UpdateOilLogRequest = z.output<typeof UpdateOilLogRequest>;
+export type OilLogQuery = z.output<typeof OilLogQuery>;
+export type OilTotalsQuery = z.output<typeof OilTotalsQuery>;
+export type UpkeepCheckRequest = z.output<typeof UpkeepCheckRequest>;
+
+/** The oil a site held when it began keeping its oil log in Decant. */
+export const OpeningBalanceRequest = z.object({
+  volume: z.number().finite().min(0).max(10_000_000),
+  unit: z.enum(['gal', 'L']),
+  on: isoDate,
+});
+export type OpeningBalanceRequest = z.output<typeof OpeningBalanceRequest>;
+
+export const UpkeepCheckListQuery = z.object({ equipmentId: uuid });
+export type UpkeepCheckListQuery = z.output<typeof UpkeepCheckListQuery>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isoDate, uuid } from './fields.js';
 
 /**
  * The period summary on the wire: what GET /api/periods/:id/summary answers. Field names are
@@ -13,7 +14,7 @@ export type Statistic = z.infer<typeof Statistic>;
 
 export const Exceedance = z.object({
   date: doc(z.string(), 'A day (YYYY-MM-DD), or a month (YYYY-MM) for a monthly average'),
-  value: doc(z.number(), 'The figure over the limit (under it for an instantaneous minimum), in the limit\'s unit, unrounded'),
+  value: doc(z.number(), "The figure over the limit (under it for an instantaneous minimum), in the limit's unit, unrounded"),
   shownValue: doc(z.string(), '`value` at the precision the method or the permit calls for'),
   limit: doc(z.number(), 'The limit, in its unit'),
   percentOver: doc(z.number(), 'How far past the limit (above a maximum, below a minimum), in % of the limit, to one decimal'),
@@ -27,25 +28,34 @@ export const LimitRow = z.object({
   dischargePointId: z.string(),
   pointCode: z.string(),
   parameterId: z.string(),
-  parameter: doc(z.string(), 'The parameter\'s name'),
+  parameter: doc(z.string(), "The parameter's name"),
   statistic: Statistic,
-  unit: doc(z.string(), 'The limit\'s unit; every figure of the row is in it (lb/day or kg/day for a mass limit)'),
+  unit: doc(z.string(), "The limit's unit; every figure of the row is in it (lb/day or kg/day for a mass limit)"),
   limitValue: z.number(),
-  computedValue: doc(Figure.nullable(), 'The statistic over the period: the highest daily discharge, the highest monthly average, or the extreme single measurement; null without data'),
-  shownValue: doc(z.string().nullable(), '`computedValue` at the precision the method or permit calls for; the raw value stays in `computedValue`'),
+  computedValue: doc(
+    Figure.nullable(),
+    'The statistic over the period: the highest daily discharge, the highest monthly average, or the extreme single measurement; null without data',
+  ),
+  shownValue: doc(
+    z.string().nullable(),
+    '`computedValue` at the precision the method or permit calls for; the raw value stays in `computedValue`',
+  ),
   precision: doc(z.string(), 'The rule `shownValue` follows, with its source'),
   exceeded: doc(z.boolean(), 'Strictly greater than a maximum (or less than a minimum), on any day or month of the period'),
   samplesTaken: doc(z.number(), 'Samples taken in the period'),
   samplesRequired: doc(z.number(), 'Samples the monitoring frequency asks for in the whole calendar units of the period that are over'),
-  missedMonitoring: doc(z.array(z.object({ unit: z.string(), taken: z.number(), required: z.number() })), 'Each day, ISO week, month or quarter with fewer samples than required'),
+  missedMonitoring: doc(
+    z.array(z.object({ unit: z.string(), taken: z.number(), required: z.number() })),
+    'Each day, ISO week, month or quarter with fewer samples than required',
+  ),
   daysWithoutFlow: doc(z.array(z.string()), 'For a mass limit: sampled days without a flow reading, where no loading could be worked out'),
   dailyValues: doc(
     z.array(z.object({ day: z.string(), value: Figure, massLoading: z.object({ lbPerDay: z.number(), kgPerDay: z.number() }).nullable() })),
-    'The daily discharges of 40 CFR 122.2, in the limit\'s unit, with the mass loading where the day has a flow reading',
+    "The daily discharges of 40 CFR 122.2, in the limit's unit, with the mass loading where the day has a flow reading",
   ),
   monthlyValues: doc(
     z.array(z.object({ month: z.string(), value: Figure, shownValue: z.string(), days: z.number(), exceeded: z.boolean() })),
-    'For a monthly average: each calendar month\'s average of its daily discharges (40 CFR 122.2)',
+    "For a monthly average: each calendar month's average of its daily discharges (40 CFR 122.2)",
   ),
   exceedances: z.array(Exceedance),
 });
@@ -68,7 +78,10 @@ export const PeriodSummaryCore = z.object({
   nonDetectPolicy: doc(z.enum(['zero', 'mdl', 'ml', 'half-mdl']), 'What a non-detect counts as in averages, per the permit'),
   massLoadingFactor: doc(z.number(), 'lb/day = MGD × mg/L × this factor (8.34 or 8.3454)'),
   rows: doc(z.array(LimitRow), 'One row per discharge point × limit of the permit'),
-  significantNoncompliance: doc(z.array(SncVerdict).nullable(), 'Verdicts per pollutant and six-month window; null for a direct-discharge (NPDES) permit, where 40 CFR 403.8 does not apply'),
+  significantNoncompliance: doc(
+    z.array(SncVerdict).nullable(),
+    'Verdicts per pollutant and six-month window; null for a direct-discharge (NPDES) permit, where 40 CFR 403.8 does not apply',
+  ),
 });
 export type PeriodSummaryCore = z.infer<typeof PeriodSummaryCore>;
 
@@ -86,9 +99,22 @@ export const PeriodSummary = PeriodSummaryCore.extend({
   openFollowUps: z.number(),
   labFlagCount: doc(z.number(), 'Results of the period the lab checks flagged'),
   reportTimeliness: doc(
-    z.object({ dueOn: z.string(), submittedOn: z.string().nullable(), daysLate: z.number(), lateReportDays: z.number(), significantNoncompliance: z.boolean().nullable() }),
+    z.object({
+      dueOn: z.string(),
+      submittedOn: z.string().nullable(),
+      daysLate: z.number(),
+      lateReportDays: z.number(),
+      significantNoncompliance: z.boolean().nullable(),
+    }),
     'When the periodic report was sent against its due date, and whether lateness is significant (pretreatment permits)',
   ),
   cautions: doc(z.array(z.string()), 'The summary is a record-keeping aid; the permit and the control authority decide'),
 });
 export type PeriodSummary = z.infer<typeof PeriodSummary>;
+
+export const PeriodListQuery = z.object({ siteId: uuid.optional(), permitId: uuid.optional() });
+export type PeriodListQuery = z.output<typeof PeriodListQuery>;
+
+/** When the periodic report went to the control authority. */
+export const SubmissionRequest = z.object({ submittedOn: isoDate });
+export type SubmissionRequest = z.output<typeof SubmissionRequest>;

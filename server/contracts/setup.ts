@@ -21,7 +21,12 @@ export const CreateSiteRequest = SiteFields;
 export const UpdateSiteRequest = updateOf(SiteFields);
 
 export const DischargePointFields = z.object({
-  code: z.string().trim().min(1, 'Enter a code').max(40).regex(/^[A-Za-z0-9._-]+$/, 'Letters, digits, dot, dash and underscore only'),
+  code: z
+    .string()
+    .trim()
+    .min(1, 'Enter a code')
+    .max(40)
+    .regex(/^[A-Za-z0-9._-]+$/, 'Letters, digits, dot, dash and underscore only'),
   name: z.string().trim().min(1, 'Enter a name').max(200),
   receiving: z.enum(['sewer', 'surface-water']),
   active: z.boolean().default(true),
@@ -32,7 +37,12 @@ export type DischargePoint = z.infer<typeof DischargePointFields> & { id: string
 
 export const ParameterFields = z.object({
   siteId: uuid.nullable().default(null),
-  code: z.string().trim().min(1).max(60).regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes'),
+  code: z
+    .string()
+    .trim()
+    .min(1)
+    .max(60)
+    .regex(/^[a-z0-9-]+$/, 'Lower-case letters, digits and dashes'),
   name: z.string().trim().min(1, 'Enter a name').max(200),
   fraction: z.enum(['HEM', 'SGT-HEM']).nullable().default(null),
   defaultUnit: unit,
@@ -62,8 +72,10 @@ export const PermitFields = z.object({
 const effectiveOrder = (permit: { effectiveFrom?: string; effectiveTo?: string | null }) =>
   !permit.effectiveFrom || !permit.effectiveTo || permit.effectiveTo >= permit.effectiveFrom;
 export const CreatePermitRequest = PermitFields.refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
-export const UpdatePermitRequest = updateOf(PermitFields.omit({ siteId: true }))
-  .refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
+export const UpdatePermitRequest = updateOf(PermitFields.omit({ siteId: true })).refine(effectiveOrder, {
+  path: ['effectiveTo'],
+  message: 'Ends before it starts',
+});
 export type Permit = z.infer<typeof PermitFields> & { id: string };
 
 export const limitStatistics = ['daily-maximum', 'monthly-average', 'instantaneous-minimum', 'instantaneous-maximum'] as const;
@@ -82,3 +94,14 @@ export const LimitFields = z.object({
 export const CreateLimitRequest = LimitFields;
 export const UpdateLimitRequest = updateOf(LimitFields);
 export type Limit = z.infer<typeof LimitFields> & { id: string; permitId: string };
+
+export type CreateSiteRequest = z.output<typeof CreateSiteRequest>;
+export type UpdateSiteRequest = z.output<typeof UpdateSiteRequest>;
+export type CreateDischargePointRequest = z.output<typeof CreateDischargePointRequest>;
+export type UpdateDischargePointRequest = z.output<typeof UpdateDischargePointRequest>;
+export type CreateParameterRequest = z.output<typeof CreateParameterRequest>;
+export type UpdateParameterRequest = z.output<typeof UpdateParameterRequest>;
+export type CreatePermitRequest = z.output<typeof CreatePermitRequest>;
+export type UpdatePermitRequest = z.output<typeof UpdatePermitRequest>;
+export type CreateLimitRequest = z.output<typeof CreateLimitRequest>;
+export type UpdateLimitRequest = z.output<typeof UpdateLimitRequest>;

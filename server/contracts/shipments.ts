@@ -31,7 +31,9 @@ export const ShipmentFields = z.object({
 
 type ShipmentShape = { documentKind?: string; documentNumber?: string; shippedOn?: string; signedCopyReceivedOn?: string | null };
 const manifestNumber = (shipment: ShipmentShape) =>
-  shipment.documentKind !== 'hazardous-waste-manifest' || !shipment.documentNumber || MANIFEST_TRACKING_NUMBER.test(shipment.documentNumber);
+  shipment.documentKind !== 'hazardous-waste-manifest' ||
+  !shipment.documentNumber ||
+  MANIFEST_TRACKING_NUMBER.test(shipment.documentNumber);
 const copyAfterShipment = (shipment: ShipmentShape) =>
   !shipment.signedCopyReceivedOn || !shipment.shippedOn || shipment.signedCopyReceivedOn >= shipment.shippedOn;
 
@@ -63,3 +65,6 @@ export interface ShipmentView extends Omit<z.infer<typeof ShipmentFields>, never
   flags: Flag[];
   files: Array<{ id: string; fileName: string; mediaType: string; sizeBytes: number; sha256: string }>;
 }
+
+export type UpdateShipmentRequest = z.output<typeof UpdateShipmentRequest>;
+export type ShipmentQuery = z.output<typeof ShipmentQuery>;

@@ -16,7 +16,10 @@ export const UserView = z.object({
 export type UserView = z.infer<typeof UserView>;
 
 export const CreateUserRequest = z.object({
-  email: z.email('Enter a valid e-mail address').max(254).transform((value) => value.toLowerCase()),
+  email: z
+    .email('Enter a valid e-mail address')
+    .max(254)
+    .transform((value) => value.toLowerCase()),
   name: z.string().trim().min(1, 'Enter a name').max(120),
   role: Role.nullable(),
   siteIds: z.array(z.uuid()).max(500).default([]),
@@ -46,3 +49,5 @@ export interface Me {
   sites: SiteSummary[];
   permissions: Action[];
 }
+
+export type UpdatePreferencesRequest = z.output<typeof UpdatePreferencesRequest>;

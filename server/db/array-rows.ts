@@ -13,7 +13,9 @@ interface ArrayQueryable {
 export async function queryArrays(db: DataSource | EntityManager, sql: string, params: unknown[]): Promise<unknown[][]> {
   const runner = db instanceof DataSource ? undefined : db.queryRunner;
   const client: ArrayQueryable =
-    runner && !runner.isReleased ? await runner.connect() : ((db instanceof DataSource ? db : db.connection).driver as PostgresDriver).master;
+    runner && !runner.isReleased
+      ? await runner.connect()
+      : ((db instanceof DataSource ? db : db.connection).driver as PostgresDriver).master;
   const { rows } = await client.query({ text: sql, values: params, rowMode: 'array' });
   return rows;
 }

@@ -23,9 +23,12 @@ export async function queryPage<Row, T>(
   const n = spec.params.length;
   const [rows, [{ count }]] = await inParallel(
     db,
-    () => db.query(`${spec.select} WHERE ${spec.where} ORDER BY ${spec.order} LIMIT $${n + 1} OFFSET $${n + 2}`, [
-      ...spec.params, page.pageSize, (page.page - 1) * page.pageSize,
-    ]) as Promise<Row[]>,
+    () =>
+      db.query(`${spec.select} WHERE ${spec.where} ORDER BY ${spec.order} LIMIT $${n + 1} OFFSET $${n + 2}`, [
+        ...spec.params,
+        page.pageSize,
+        (page.page - 1) * page.pageSize,
+      ]) as Promise<Row[]>,
     () => db.query(`SELECT count(*)::int AS count ${spec.countFrom} WHERE ${spec.where}`, spec.params) as Promise<[{ count: number }]>,
   );
   return { items: rows.map(view), total: count, page: page.page, pageSize: page.pageSize };

@@ -69,4 +69,5 @@ export async function uniquely<T>(work: () => Promise<T>, field: string, message
   }
 }
 
-const jsonReady = (value: unknown) => (value !== null && typeof value === 'object' && !(value instanceof Date) ? JSON.stringify(value) : value);
+const jsonReady = (value: unknown) =>
+  value !== null && typeof value === 'object' && !(value instanceof Date) ? JSON.stringify(value) : value;

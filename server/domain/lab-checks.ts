@@ -90,12 +90,7 @@ export function holdingTimeExceeded(collectedAt: Date, analysedAt: Date, timeZon
   return analysedAt.getTime() > deadline.toMillis();
 }
 
-export function checkResult(
-  result: ResultFacts,
-  sample: SampleFacts,
-  limits: LimitFacts[],
-  timeZone: string,
-): Flag[] {
+export function checkResult(result: ResultFacts, sample: SampleFacts, limits: LimitFacts[], timeZone: string): Flag[] {
   const flags: Flag[] = [];
   const value = Number(result.valueReported);
   const oilAndGrease = result.fraction !== null;
@@ -160,7 +155,11 @@ export function checkResult(
       continue;
     }
     // A non-detect ("<" reporting limit) never exceeds a maximum; "exceed" is strictly greater.
-    if (result.qualifier === null && (limit.statistic === 'daily-maximum' || limit.statistic === 'instantaneous-maximum') && comparable > limit.value) {
+    if (
+      result.qualifier === null &&
+      (limit.statistic === 'daily-maximum' || limit.statistic === 'instantaneous-maximum') &&
+      comparable > limit.value
+    ) {
       flags.push({
         code: 'over-limit',
         severity: 'error',
@@ -201,7 +200,12 @@ export function checkQcBatch(qc: QcFacts): Flag[] {
     flags.push({ code: 'qc-ms-recovery', severity: 'warning', message: `MS recovery ${window(ms, criteria.matrixSpike)}`, source: table });
   }
   if (msd !== null && !withinWindow(msd, criteria.matrixSpike)) {
-    flags.push({ code: 'qc-msd-recovery', severity: 'warning', message: `MSD recovery ${window(msd, criteria.matrixSpike)}`, source: table });
+    flags.push({
+      code: 'qc-msd-recovery',
+      severity: 'warning',
+      message: `MSD recovery ${window(msd, criteria.matrixSpike)}`,
+      source: table,
+    });
   }
   if (rpd !== null && rpd > criteria.rpdMax) {
     flags.push({ code: 'qc-rpd', severity: 'warning', message: `MS/MSD RPD ${round(rpd)} % above ${criteria.rpdMax} %`, source: table });
@@ -209,7 +213,12 @@ export function checkQcBatch(qc: QcFacts): Flag[] {
   // §9.4 (from memory, to be checked against the text): a blank at or above the ML means the
   // batch's results are suspect.
   if (qc.methodBlank !== null && qc.methodBlank >= MINIMUM_LEVEL) {
-    flags.push({ code: 'qc-method-blank', severity: 'warning', message: `Method blank ${qc.methodBlank} mg/L at or above the ML`, source: `${source1664} §9.4` });
+    flags.push({
+      code: 'qc-method-blank',
+      severity: 'warning',
+      message: `Method blank ${qc.methodBlank} mg/L at or above the ML`,
+      source: `${source1664} §9.4`,
+    });
   }
   return flags;
 }

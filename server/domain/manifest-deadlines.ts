@@ -17,7 +17,10 @@ export interface ManifestDeadline {
   source: string;
 }
 
-const schedule: Record<'large' | 'small', Record<ManifestRule, Array<{ step: ManifestDeadline['step']; days: number; section: string }>>> = {
+const schedule: Record<
+  'large' | 'small',
+  Record<ManifestRule, Array<{ step: ManifestDeadline['step']; days: number; section: string }>>
+> = {
   large: {
     current: [
       { step: 'contact-transporter-and-facility', days: 45, section: '262.42(a)(1)' },

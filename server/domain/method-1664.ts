@@ -21,9 +21,24 @@ interface Window {
 }
 
 /** Table 1, acceptance criteria, in percent. */
-export const acceptanceCriteria: Record<Fraction, { opr: Window; matrixSpike: Window; rpdMax: number; iprPrecisionMax: number; iprRecovery: Window }> = {
-  HEM: { iprPrecisionMax: 11, iprRecovery: { min: 83, max: 101 }, matrixSpike: { min: 78, max: 114 }, rpdMax: 18, opr: { min: 78, max: 114 } },
-  'SGT-HEM': { iprPrecisionMax: 28, iprRecovery: { min: 83, max: 116 }, matrixSpike: { min: 64, max: 132 }, rpdMax: 34, opr: { min: 64, max: 132 } },
+export const acceptanceCriteria: Record<
+  Fraction,
+  { opr: Window; matrixSpike: Window; rpdMax: number; iprPrecisionMax: number; iprRecovery: Window }
+> = {
+  HEM: {
+    iprPrecisionMax: 11,
+    iprRecovery: { min: 83, max: 101 },
+    matrixSpike: { min: 78, max: 114 },
+    rpdMax: 18,
+    opr: { min: 78, max: 114 },
+  },
+  'SGT-HEM': {
+    iprPrecisionMax: 28,
+    iprRecovery: { min: 83, max: 116 },
+    matrixSpike: { min: 64, max: 132 },
+    rpdMax: 34,
+    opr: { min: 64, max: 132 },
+  },
 };
 
 export const withinWindow = (value: number, window: Window) => value >= window.min && value <= window.max;

@@ -19,13 +19,33 @@ const DAY = 24 * HOUR;
 export function violationObligations(permitKind: 'pretreatment' | 'npdes', statistic: string, awareAt: Date): Obligation[] {
   if (permitKind === 'pretreatment') {
     return [
-      { kind: 'notify-control-authority', title: 'Notify the control authority of the violation', dueAt: new Date(awareAt.getTime() + 24 * HOUR), source: '40 CFR 403.12(g)(2)' },
-      { kind: 'repeat-sampling', title: 'Repeat the sampling and submit the result', dueAt: new Date(awareAt.getTime() + 30 * DAY), source: '40 CFR 403.12(g)(2)' },
+      {
+        kind: 'notify-control-authority',
+        title: 'Notify the control authority of the violation',
+        dueAt: new Date(awareAt.getTime() + 24 * HOUR),
+        source: '40 CFR 403.12(g)(2)',
+      },
+      {
+        kind: 'repeat-sampling',
+        title: 'Repeat the sampling and submit the result',
+        dueAt: new Date(awareAt.getTime() + 30 * DAY),
+        source: '40 CFR 403.12(g)(2)',
+      },
     ];
   }
   if (statistic !== 'daily-maximum') return [];
   return [
-    { kind: 'report-within-24-hours', title: 'Report the noncompliance orally', dueAt: new Date(awareAt.getTime() + 24 * HOUR), source: '40 CFR 122.41(l)(6)(i)' },
-    { kind: 'written-report', title: 'Send the written noncompliance report', dueAt: new Date(awareAt.getTime() + 5 * DAY), source: '40 CFR 122.41(l)(6)(i)' },
+    {
+      kind: 'report-within-24-hours',
+      title: 'Report the noncompliance orally',
+      dueAt: new Date(awareAt.getTime() + 24 * HOUR),
+      source: '40 CFR 122.41(l)(6)(i)',
+    },
+    {
+      kind: 'written-report',
+      title: 'Send the written noncompliance report',
+      dueAt: new Date(awareAt.getTime() + 5 * DAY),
+      source: '40 CFR 122.41(l)(6)(i)',
+    },
   ];
 }

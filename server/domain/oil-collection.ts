@@ -23,12 +23,14 @@ export function collectionFlags(litres: number, hoursRun: number | null, ratedLi
   if (hoursRun === null || hoursRun <= 0) return [];
   const rate = litres / hoursRun;
   if (rate <= ratedLitresPerHour) return [];
-  return [{
-    code: 'above-rating',
-    severity: 'warning',
-    message: `Collected faster (${rate.toFixed(1)} L/h) than the equipment's rating (${ratedLitresPerHour.toFixed(1)} L/h): check the volume or the hours run`,
-    source: 'equipment rating',
-  }];
+  return [
+    {
+      code: 'above-rating',
+      severity: 'warning',
+      message: `Collected faster (${rate.toFixed(1)} L/h) than the equipment's rating (${ratedLitresPerHour.toFixed(1)} L/h): check the volume or the hours run`,
+      source: 'equipment rating',
+    },
+  ];
 }
 
 /**
@@ -50,10 +52,20 @@ export function oilOnHand(input: OilBalanceInput): { litres: number; flags: Flag
   const gallons = litres / 3.785411784;
   const flags: Flag[] = [];
   if (litres < 0) {
-    flags.push({ code: 'negative-balance', severity: 'error', message: 'More oil shipped than opening balance plus collected: an oil log entry is probably missing', source: 'oil balance' });
+    flags.push({
+      code: 'negative-balance',
+      severity: 'error',
+      message: 'More oil shipped than opening balance plus collected: an oil log entry is probably missing',
+      source: 'oil balance',
+    });
   }
   if (input.capacityGallons !== null && gallons > input.capacityGallons) {
-    flags.push({ code: 'above-capacity', severity: 'error', message: `${Math.round(gallons)} US gal on hand, above the ${input.capacityGallons} US gal storage capacity`, source: 'site storage capacity' });
+    flags.push({
+      code: 'above-capacity',
+      severity: 'error',
+      message: `${Math.round(gallons)} US gal on hand, above the ${input.capacityGallons} US gal storage capacity`,
+      source: 'site storage capacity',
+    });
   }
   const storage = Math.max(input.capacityGallons ?? 0, gallons);
   if (storage > SPCC_AGGREGATE_THRESHOLD_GALLONS) {

@@ -26,7 +26,11 @@ export function reportingPeriods(
     const end = start.plus({ months: step }).minus({ days: 1 });
     const startsOn = (start < from ? from : start).toISODate()!;
     const clippedEnd = permit.effectiveTo && end.toISODate()! > permit.effectiveTo ? permit.effectiveTo : end.toISODate()!;
-    periods.push({ startsOn, endsOn: clippedEnd, dueOn: DateTime.fromISO(clippedEnd, { zone: 'UTC' }).plus({ days: permit.reportDueDays }).toISODate()! });
+    periods.push({
+      startsOn,
+      endsOn: clippedEnd,
+      dueOn: DateTime.fromISO(clippedEnd, { zone: 'UTC' }).plus({ days: permit.reportDueDays }).toISODate()!,
+    });
     start = start.plus({ months: step });
   }
   return periods;

@@ -57,7 +57,6 @@ export function measuredUnitFor(limitUnit: string): string | null {
   }
 }
 
-
 export function isKnownUnit(unit: string): boolean {
   return unit in units;
 }

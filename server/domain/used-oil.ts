@@ -39,16 +39,25 @@ export function usedOilFlags(analysis: UsedOilAnalysis): Flag[] {
   if (!analysis.burnedAsFuel) return flags;
   const spec = fuelSpecification;
   const over: string[] = [];
-  if (analysis.arsenicPpm !== null && analysis.arsenicPpm > spec.arsenicMaxPpm) over.push(`arsenic ${analysis.arsenicPpm} ppm > ${spec.arsenicMaxPpm}`);
-  if (analysis.cadmiumPpm !== null && analysis.cadmiumPpm > spec.cadmiumMaxPpm) over.push(`cadmium ${analysis.cadmiumPpm} ppm > ${spec.cadmiumMaxPpm}`);
-  if (analysis.chromiumPpm !== null && analysis.chromiumPpm > spec.chromiumMaxPpm) over.push(`chromium ${analysis.chromiumPpm} ppm > ${spec.chromiumMaxPpm}`);
+  if (analysis.arsenicPpm !== null && analysis.arsenicPpm > spec.arsenicMaxPpm)
+    over.push(`arsenic ${analysis.arsenicPpm} ppm > ${spec.arsenicMaxPpm}`);
+  if (analysis.cadmiumPpm !== null && analysis.cadmiumPpm > spec.cadmiumMaxPpm)
+    over.push(`cadmium ${analysis.cadmiumPpm} ppm > ${spec.cadmiumMaxPpm}`);
+  if (analysis.chromiumPpm !== null && analysis.chromiumPpm > spec.chromiumMaxPpm)
+    over.push(`chromium ${analysis.chromiumPpm} ppm > ${spec.chromiumMaxPpm}`);
   if (analysis.leadPpm !== null && analysis.leadPpm > spec.leadMaxPpm) over.push(`lead ${analysis.leadPpm} ppm > ${spec.leadMaxPpm}`);
-  if (analysis.flashPointF !== null && analysis.flashPointF < spec.flashPointMinF) over.push(`flash point ${analysis.flashPointF} °F < ${spec.flashPointMinF}`);
+  if (analysis.flashPointF !== null && analysis.flashPointF < spec.flashPointMinF)
+    over.push(`flash point ${analysis.flashPointF} °F < ${spec.flashPointMinF}`);
   if (analysis.totalHalogensPpm !== null && analysis.totalHalogensPpm > spec.totalHalogensMaxPpm) {
     over.push(`total halogens ${analysis.totalHalogensPpm} ppm > ${spec.totalHalogensMaxPpm}`);
   }
   if (over.length > 0) {
-    flags.push({ code: 'off-specification', severity: 'warning', message: `Off-specification used oil fuel: ${over.join('; ')}`, source: '40 CFR 279.11, Table 1' });
+    flags.push({
+      code: 'off-specification',
+      severity: 'warning',
+      message: `Off-specification used oil fuel: ${over.join('; ')}`,
+      source: '40 CFR 279.11, Table 1',
+    });
   }
   return flags;
 }

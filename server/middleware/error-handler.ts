@@ -12,7 +12,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   let status: number;
   if (error instanceof AppError) {
     status = error.status;
-    body = { error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) } };
+    body = { error: { code: error.code, message: error.message, ...(error.fields ? { fields: error.fields } : {}) }, ...error.extra };
   } else if (error?.type === 'entity.parse.failed') {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: { _: 'not JSON' } } };

@@ -12,3 +12,8 @@ export function requirePermission(action: Action): RequestHandler {
     next();
   };
 }
+
+/** For routes any signed-in user may call (their own profile, their preferences). */
+export function requireSignedIn(): RequestHandler {
+  return (_req, res, next) => next(res.locals.user ? undefined : unauthenticated());
+}

@@ -1,7 +1,7 @@
 import multer from 'multer';
 import type { RequestHandler } from 'express';
 import { AppError } from '../errors/app-error.js';
-import { MAX_UPLOAD_BYTES } from '../features/files/stored-files.js';
+import { MAX_UPLOAD_BYTES } from '../kernel/files/stored-files.js';
 
 const parser = multer({
   storage: multer.memoryStorage(),

@@ -1,6 +1,7 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
 import { invalid } from '../errors/app-error.js';
+import { validatedParts } from '../http/validated-parts.js';
 
 interface Schemas {
   body?: z.ZodType;
@@ -20,24 +21,26 @@ export function fieldsOf(error: z.ZodError, prefix?: string): Record<string, str
   return fields;
 }
 
-/**
- * Validates the parts of a request at the edge. The parsed values are kept in `res.locals`
- * (`body`, `query`, `params`) because Express 5 makes `req.query` read-only.
- */
 /** The schemas a validate() middleware checks, kept on it for the OpenAPI document. */
 export const validatedSchemas = new WeakMap<RequestHandler, Schemas>();
 
+/**
+ * Validates the parts of a request at the edge. The parsed values are kept beside the response
+ * (Express 5 makes `req.query` read-only) for endpoint() to hand to its handler, typed.
+ */
 export function validate(schemas: Schemas): RequestHandler {
   const handler: RequestHandler = (req, res, next) => {
     const fields: Record<string, string> = {};
+    const parsed: { params?: unknown; query?: unknown; body?: unknown } = {};
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part];
       if (!schema) continue;
       const result = schema.safeParse(req[part] ?? {});
-      if (result.success) res.locals[part] = result.data;
+      if (result.success) parsed[part] = result.data;
       else Object.assign(fields, fieldsOf(result.error, part === 'body' ? undefined : part));
     }
     if (Object.keys(fields).length > 0) return next(invalid(fields));
+    validatedParts.set(res, parsed);
     next();
   };
   validatedSchemas.set(handler, schemas);

@@ -61,7 +61,12 @@ export function openApiDocument(api: Router): object {
   }
   return createDocument({
     openapi: '3.1.0',
-    info: { title: 'Decant API', version: '0.1.0', description: 'Compliance records of industrial sites discharging oily wastewater. Errors answer { error: { code, message, fields? } }.' },
+    info: {
+      title: 'Decant API',
+      version: '0.1.0',
+      description:
+        'Compliance records of industrial sites discharging oily wastewater. Errors answer { error: { code, message, fields? } }.',
+    },
     paths,
   });
 }

@@ -69,7 +69,16 @@ export async function startLocalCluster(projectDir: string, port: number): Promi
     }
     try {
       const [command, args] = asPostgres(join(bin, 'initdb'), [
-        '-D', dataDir, '-U', 'decant', `--pwfile=${passwordFile}`, '-A', 'scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8',
+        '-D',
+        dataDir,
+        '-U',
+        'decant',
+        `--pwfile=${passwordFile}`,
+        '-A',
+        'scram-sha-256',
+        '-E',
+        'UTF8',
+        '--locale=C.UTF-8',
       ]);
       run(command, [...args], { stdio: 'ignore' });
     } finally {
@@ -86,8 +95,14 @@ export async function startLocalCluster(projectDir: string, port: number): Promi
       );
     }
     const [command, args] = ctl([
-      '-l', join(dataDir, 'server.log'), '-w', '-t', '60',
-      '-o', `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=''`, 'start',
+      '-l',
+      join(dataDir, 'server.log'),
+      '-w',
+      '-t',
+      '60',
+      '-o',
+      `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories=''`,
+      'start',
     ]);
     run(command, [...args], { stdio: ['ignore', 'ignore', 'inherit'] });
   }

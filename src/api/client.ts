@@ -38,7 +38,8 @@ export async function request<T>(method: string, path: string, options: { query?
   const response = await fetch(withQuery(`/api${path}`, options.query), {
     method,
     credentials: 'same-origin',
-    headers: options.body === undefined ? { accept: 'application/json' } : { 'content-type': 'application/json', accept: 'application/json' },
+    headers:
+      options.body === undefined ? { accept: 'application/json' } : { 'content-type': 'application/json', accept: 'application/json' },
     body: options.body === undefined ? undefined : JSON.stringify(options.body),
   });
   if (response.status === 204) return undefined as T;

@@ -1,4 +1,10 @@
-import type { CertificateDetail, CertificateSummary, CreateLabCertificateRequest, ResultRow, UpdateLabCertificateRequest } from '@contracts/lab.js';
+import type {
+  CertificateDetail,
+  CertificateSummary,
+  CreateLabCertificateRequest,
+  ResultRow,
+  UpdateLabCertificateRequest,
+} from '@contracts/lab.js';
 import type { ImportReport } from '@contracts/lab-import.js';
 import type { Page } from '@contracts/paging.js';
 import { api, upload, type Query } from './client';

@@ -18,9 +18,11 @@ export const oilApi = {
   equipment: (siteId: string) => api.get<{ items: EquipmentView[] }>('/equipment', { siteId }),
   equipmentOne: (id: string) => api.get<EquipmentView>(`/equipment/${id}`),
   entries: (query: Query) => api.get<Page<OilLogEntryView>>('/oil-log', query),
-  totals: (query: Query) => api.get<{ by: string; items: Array<{ period: string; litres: number; entries: number }> }>('/oil-log/totals', query),
+  totals: (query: Query) =>
+    api.get<{ by: string; items: Array<{ period: string; litres: number; entries: number }> }>('/oil-log/totals', query),
   log: (body: unknown) => api.post<OilLogEntryView>('/oil-log', body),
-  upkeepChecks: (equipmentId: string) => api.get<{ items: UpkeepCheckView[]; checklist: typeof upkeepItems }>('/upkeep-checks', { equipmentId }),
+  upkeepChecks: (equipmentId: string) =>
+    api.get<{ items: UpkeepCheckView[]; checklist: typeof upkeepItems }>('/upkeep-checks', { equipmentId }),
   recordUpkeep: (body: unknown) => api.post<UpkeepCheckView>('/upkeep-checks', body),
   oilOnHand: (siteId: string) => api.get<OilOnHand>(`/sites/${siteId}/oil-on-hand`),
   shipments: (query: Query) => api.get<Page<ShipmentView>>('/shipments', query),

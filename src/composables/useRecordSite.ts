@@ -7,7 +7,11 @@ import { useSessionStore } from '@/stores/session';
  */
 export function useRecordSite(siteId: Ref<string | null | undefined>): void {
   const session = useSessionStore();
-  watch(siteId, (id) => {
-    if (id && session.currentSite?.id !== id && session.sites.some((site) => site.id === id)) session.selectSite(id);
-  }, { immediate: true });
+  watch(
+    siteId,
+    (id) => {
+      if (id && session.currentSite?.id !== id && session.sites.some((site) => site.id === id)) session.selectSite(id);
+    },
+    { immediate: true },
+  );
 }

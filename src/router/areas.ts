@@ -1,4 +1,14 @@
-import { mdiAccountKeyOutline, mdiBellAlertOutline, mdiCalendarRange, mdiCogOutline, mdiFlaskOutline, mdiHistory, mdiOilLevel, mdiTruckOutline, mdiViewDashboardOutline } from '@mdi/js';
+import {
+  mdiAccountKeyOutline,
+  mdiBellAlertOutline,
+  mdiCalendarRange,
+  mdiCogOutline,
+  mdiFlaskOutline,
+  mdiHistory,
+  mdiOilLevel,
+  mdiTruckOutline,
+  mdiViewDashboardOutline,
+} from '@mdi/js';
 import type { Action } from '@contracts/permissions.js';
 
 export interface Area {

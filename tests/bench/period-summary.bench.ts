@@ -17,16 +17,27 @@ const ds = await createDataSource(database.url).initialize();
 
 async function setUp(db: DataSource): Promise<{ periodId: string; siteId: string }> {
   const [company] = await db.query(`INSERT INTO company (name) VALUES ('Bench Co') RETURNING id`);
-  const [site] = await db.query(`INSERT INTO site (company_id, name, time_zone) VALUES ($1, 'Bench site', 'America/Chicago') RETURNING id`, [company.id]);
-  const [user] = await db.query(`INSERT INTO app_user (email, name, role) VALUES ('bench@decant.test', 'Bench', 'coordinator') RETURNING id`);
+  const [site] = await db.query(
+    `INSERT INTO site (company_id, name, time_zone) VALUES ($1, 'Bench site', 'America/Chicago') RETURNING id`,
+    [company.id],
+  );
+  const [user] = await db.query(
+    `INSERT INTO app_user (email, name, role) VALUES ('bench@decant.test', 'Bench', 'coordinator') RETURNING id`,
+  );
   const [permit] = await db.query(
     `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days, non_detect_policy, mass_loading_factor, snc_window)
      VALUES ($1, 'pretreatment', 'BENCH-1', 'Bench authority', '2000-01-01', 'semiannual', 30, 'zero', 8.34, 'calendar-halves') RETURNING id`,
     [site.id],
   );
-  await db.query(`INSERT INTO parameter (site_id, code, name, default_unit, snc_review_factor)
-    SELECT $1, 'bench-' || g, 'Bench parameter ' || g, 'mg/L', 1.2 FROM generate_series(1, ${PARAMETERS}) g`, [site.id]);
-  await db.query(`INSERT INTO discharge_point (site_id, code, name, receiving) SELECT $1, 'BP-' || g, 'Bench point ' || g, 'sewer' FROM generate_series(1, ${POINTS}) g`, [site.id]);
+  await db.query(
+    `INSERT INTO parameter (site_id, code, name, default_unit, snc_review_factor)
+    SELECT $1, 'bench-' || g, 'Bench parameter ' || g, 'mg/L', 1.2 FROM generate_series(1, ${PARAMETERS}) g`,
+    [site.id],
+  );
+  await db.query(
+    `INSERT INTO discharge_point (site_id, code, name, receiving) SELECT $1, 'BP-' || g, 'Bench point ' || g, 'sewer' FROM generate_series(1, ${POINTS}) g`,
+    [site.id],
+  );
   await db.query(
     `INSERT INTO permit_limit (permit_id, discharge_point_id, parameter_id, statistic, value, unit, frequency_count, frequency_per, sample_type)
      SELECT $1, d.id, p.id, s.statistic, 100, 'mg/L', 1, 'day', 'grab'
@@ -37,7 +48,10 @@ async function setUp(db: DataSource): Promise<{ periodId: string; siteId: string
     `INSERT INTO lab_certificate (site_id, lab_name, lab_accreditation_number, report_number, received_on, created_by) VALUES ($1, 'Bench', 'B', 'B-1', '2026-01-01', $2) RETURNING id`,
     [site.id, user.id],
   );
-  const [period] = await db.query(`INSERT INTO reporting_period (permit_id, starts_on, ends_on, due_on) VALUES ($1, '2025-01-01', '2025-12-31', '2026-01-30') RETURNING id`, [permit.id]);
+  const [period] = await db.query(
+    `INSERT INTO reporting_period (permit_id, starts_on, ends_on, due_on) VALUES ($1, '2025-01-01', '2025-12-31', '2026-01-30') RETURNING id`,
+    [permit.id],
+  );
   return { periodId: period.id, siteId: site.id, certificateId: certificate.id } as never;
 }
 
@@ -87,7 +101,10 @@ const dailyFloorSql = `SELECT s.discharge_point_id, r.parameter_id, s.collected_
 
 const rows: Array<Record<string, string>> = [];
 const verdicts: string[] = [];
-for (const [label, from] of [['5 years of history', 2021], ['50 years of history', 1976]] as const) {
+for (const [label, from] of [
+  ['5 years of history', 2021],
+  ['50 years of history', 1976],
+] as const) {
   await addHistory(ds, siteId, certificateId, from, from === 2021 ? 2025 : 2020);
   const [{ n }] = await ds.query('SELECT count(*)::int AS n FROM lab_result');
   const [summaryMs = NaN, floorMs = NaN, dailyFloorMs = NaN] = await timeInTurns([
@@ -96,14 +113,22 @@ for (const [label, from] of [['5 years of history', 2021], ['50 years of history
     () => ds.query(dailyFloorSql, [siteId]),
   ]);
   rows.push({
-    history: label, 'results in database': n.toLocaleString(), 'summary (ms)': summaryMs.toFixed(1),
-    'monthly aggregate (ms)': floorMs.toFixed(1), 'ratio to monthly': (summaryMs / floorMs).toFixed(2),
-    'daily aggregate (ms)': dailyFloorMs.toFixed(1), 'ratio to daily': (summaryMs / dailyFloorMs).toFixed(2),
+    history: label,
+    'results in database': n.toLocaleString(),
+    'summary (ms)': summaryMs.toFixed(1),
+    'monthly aggregate (ms)': floorMs.toFixed(1),
+    'ratio to monthly': (summaryMs / floorMs).toFixed(2),
+    'daily aggregate (ms)': dailyFloorMs.toFixed(1),
+    'ratio to daily': (summaryMs / dailyFloorMs).toFixed(2),
   });
   const met = (ok: boolean) => (ok ? 'met' : 'NOT met');
-  verdicts.push(`${label}: under 300 ms ${met(summaryMs < 300)}; within 2× the daily aggregate ${met(summaryMs <= 2 * dailyFloorMs)}; within 2× the monthly aggregate ${met(summaryMs <= 2 * floorMs)}`);
+  verdicts.push(
+    `${label}: under 300 ms ${met(summaryMs < 300)}; within 2× the daily aggregate ${met(summaryMs <= 2 * dailyFloorMs)}; within 2× the monthly aggregate ${met(summaryMs <= 2 * floorMs)}`,
+  );
 }
-console.log(`\nPeriod summary: one year, ${POINTS} points × ${PARAMETERS} parameters sampled daily (${POINTS * PARAMETERS * 365} results in the period)`);
+console.log(
+  `\nPeriod summary: one year, ${POINTS} points × ${PARAMETERS} parameters sampled daily (${POINTS * PARAMETERS * 365} results in the period)`,
+);
 console.table(rows);
 // The summary reports every daily discharge (40 CFR 122.2), so the aggregate that yields the same
 // figures is the daily one; the monthly aggregate returns far fewer rows and is shown for scale.

@@ -14,7 +14,9 @@ describe('PeopleEditDialog', () => {
   });
 
   it("shows the server's field error under the field it names", async () => {
-    const fetch = answer(409, { error: { code: 'conflict', message: 'A user with this e-mail already exists', fields: { email: 'already registered' } } });
+    const fetch = answer(409, {
+      error: { code: 'conflict', message: 'A user with this e-mail already exists', fields: { email: 'already registered' } },
+    });
     vi.stubGlobal('fetch', fetch);
     const wrapper = mountWithApp(PeopleEditDialog, { props: { modelValue: true, person: null, sites: [] } });
     await flushPromises();

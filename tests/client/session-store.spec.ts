@@ -7,8 +7,28 @@ import { useSessionStore } from '../../src/stores/session';
 const me = {
   user: { id: 'u1', email: 'operator@decant.test', name: 'Luis', role: 'operator' },
   sites: [
-    { id: 's1', name: 'A', companyName: 'C', address: '', timeZone: 'America/Chicago', retentionYears: 5, generatorStatus: 'small', manifestRule: 'current', oilStorageCapacityGallons: null },
-    { id: 's2', name: 'B', companyName: 'C', address: '', timeZone: 'America/Chicago', retentionYears: 5, generatorStatus: 'small', manifestRule: 'current', oilStorageCapacityGallons: null },
+    {
+      id: 's1',
+      name: 'A',
+      companyName: 'C',
+      address: '',
+      timeZone: 'America/Chicago',
+      retentionYears: 5,
+      generatorStatus: 'small',
+      manifestRule: 'current',
+      oilStorageCapacityGallons: null,
+    },
+    {
+      id: 's2',
+      name: 'B',
+      companyName: 'C',
+      address: '',
+      timeZone: 'America/Chicago',
+      retentionYears: 5,
+      generatorStatus: 'small',
+      manifestRule: 'current',
+      oilStorageCapacityGallons: null,
+    },
   ],
   permissions: [],
 };
@@ -20,7 +40,10 @@ describe('session store', () => {
   });
 
   it('stays signed out on a 401 instead of throwing', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify({ error: { code: 'unauthenticated', message: 'Sign in first' } }), { status: 401 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response(JSON.stringify({ error: { code: 'unauthenticated', message: 'Sign in first' } }), { status: 401 })),
+    );
     const session = useSessionStore();
     await session.load();
     expect(session.signedIn).toBe(false);
@@ -28,7 +51,10 @@ describe('session store', () => {
   });
 
   it("answers can() from the shared permission table for the user's role", async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })),
+    );
     const session = useSessionStore();
     await session.load();
     expect(session.can('oil-log.write')).toBe(true);
@@ -36,7 +62,10 @@ describe('session store', () => {
   });
 
   it('remembers the chosen site and falls back to the first', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })),
+    );
     const session = useSessionStore();
     await session.load();
     expect(session.currentSite?.id).toBe('s1');
@@ -46,7 +75,10 @@ describe('session store', () => {
   });
 
   it('switches the picker to the site of the record on screen, and ignores a site the user may not see', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => new Response(JSON.stringify(me), { status: 200 })),
+    );
     const session = useSessionStore();
     await session.load();
     const recordSite = ref<string | undefined>(undefined);

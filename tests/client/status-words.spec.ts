@@ -6,8 +6,26 @@ import { mountWithApp } from './mount';
 
 // The product brief: status is never colour alone; every state also has a word and an icon.
 const row = (over: Partial<LimitRow>): LimitRow => ({
-  limitId: 'L', dischargePointId: 'P', pointCode: 'OF-001', parameterId: 'X', parameter: 'Oil and grease', statistic: 'daily-maximum', unit: 'mg/L',
-  limitValue: 100, computedValue: 40, shownValue: '40.0', precision: 'EPA Method 1664 Rev. B §12.3', exceeded: false, daysWithoutFlow: [], samplesTaken: 2, samplesRequired: 2, missedMonitoring: [], dailyValues: [], monthlyValues: [], exceedances: [], ...over,
+  limitId: 'L',
+  dischargePointId: 'P',
+  pointCode: 'OF-001',
+  parameterId: 'X',
+  parameter: 'Oil and grease',
+  statistic: 'daily-maximum',
+  unit: 'mg/L',
+  limitValue: 100,
+  computedValue: 40,
+  shownValue: '40.0',
+  precision: 'EPA Method 1664 Rev. B §12.3',
+  exceeded: false,
+  daysWithoutFlow: [],
+  samplesTaken: 2,
+  samplesRequired: 2,
+  missedMonitoring: [],
+  dailyValues: [],
+  monthlyValues: [],
+  exceedances: [],
+  ...over,
 });
 
 describe('status words and icons', () => {
@@ -36,7 +54,11 @@ describe('status words and icons', () => {
 
   it('says "No findings" when the only flags are notes it hides, instead of leaving the cell blank', () => {
     const wrapper = mountWithApp(FlagChips, {
-      props: { flags: [{ code: 'excess-precision', severity: 'info', message: 'Shown as 23.5 mg/L', source: 'EPA Method 1664 Rev. B §12.3' }], showClear: true, hideInfo: true },
+      props: {
+        flags: [{ code: 'excess-precision', severity: 'info', message: 'Shown as 23.5 mg/L', source: 'EPA Method 1664 Rev. B §12.3' }],
+        showClear: true,
+        hideInfo: true,
+      },
     });
     expect(wrapper.text()).toContain('No findings (notes only)');
     wrapper.unmount();

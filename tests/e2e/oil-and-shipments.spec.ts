@@ -46,7 +46,10 @@ describe('the oil log on a phone, and shipments', () => {
     await page.locator('.v-app-bar .v-select').click();
     await page.getByRole('option', { name: 'Tamsin Creek Works' }).click();
     await page.getByRole('button', { name: 'Overdue' }).click();
-    await page.getByText(/Exception report: \d+ days overdue/).first().waitFor();
+    await page
+      .getByText(/Exception report: \d+ days overdue/)
+      .first()
+      .waitFor();
     await screenshot(page, 'shipments-overdue');
   });
 });

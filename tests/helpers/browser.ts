@@ -6,14 +6,24 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 export const screenshotDir = resolve(import.meta.dirname, '../e2e/screenshots');
 
 /** Debian's chromium through playwright-core: never a downloaded browser. */
-export async function openBrowser(viewport = { width: 1280, height: 800 }): Promise<{ context: BrowserContext; page: Page; close(): Promise<void> }> {
+export async function openBrowser(
+  viewport = { width: 1280, height: 800 },
+): Promise<{ context: BrowserContext; page: Page; close(): Promise<void> }> {
   const profile = mkdtempSync(join(tmpdir(), 'decant-chromium-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     headless: true,
     viewport,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-      '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
   return {
@@ -38,7 +48,9 @@ export async function signInAs(page: Page, appUrl: string, email: string, passwo
   await page.getByText(email, { exact: true }).click();
   await page.fill('#password', password);
   await page.click('button[type=submit]');
-  await page.waitForURL((url) => url.origin === new URL(appUrl).origin && !url.pathname.startsWith('/sign-in') && !url.pathname.startsWith('/api'));
+  await page.waitForURL(
+    (url) => url.origin === new URL(appUrl).origin && !url.pathname.startsWith('/sign-in') && !url.pathname.startsWith('/api'),
+  );
   if (site) {
     await page.locator('.v-app-bar .v-select').click();
     await page.getByRole('option', { name: site }).click();

@@ -76,7 +76,10 @@ describe('lab certificates', () => {
     const codes = created.body.samples[0].results[0].flags.map((flag: { code: string }) => flag.code);
     expect(codes).toContain('holding-time');
     expect(created.body.flags.map((flag: { code: string }) => flag.code)).toContain('holding-time');
-    const listed = await request(t.app).get(`/api/lab-certificates/results?flag=holding-time&siteId=${ids.north}`).set('cookie', coordinator).expect(200);
+    const listed = await request(t.app)
+      .get(`/api/lab-certificates/results?flag=holding-time&siteId=${ids.north}`)
+      .set('cookie', coordinator)
+      .expect(200);
     expect(listed.body.items.some((row: { certificateId: string }) => row.certificateId === created.body.id)).toBe(true);
   });
 
@@ -86,11 +89,21 @@ describe('lab certificates', () => {
     const created = await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(body).expect(201);
     expect(created.body.samples[0].results[0].flags).toEqual([]);
     const limits = await request(t.app).get(`/api/permits/${ids.northPermit}/limits`).set('cookie', coordinator).expect(200);
-    const dailyMax = limits.body.items.find((l: { statistic: string; parameterId: string }) => l.statistic === 'daily-maximum' && l.parameterId === ids.hem);
-    await request(t.app).patch(`/api/permits/${ids.northPermit}/limits/${dailyMax.id}`).set('cookie', coordinator).send({ value: 80 }).expect(200);
+    const dailyMax = limits.body.items.find(
+      (l: { statistic: string; parameterId: string }) => l.statistic === 'daily-maximum' && l.parameterId === ids.hem,
+    );
+    await request(t.app)
+      .patch(`/api/permits/${ids.northPermit}/limits/${dailyMax.id}`)
+      .set('cookie', coordinator)
+      .send({ value: 80 })
+      .expect(200);
     const after = await request(t.app).get(`/api/lab-certificates/${created.body.id}`).set('cookie', coordinator).expect(200);
     expect(after.body.samples[0].results[0].flags.map((f: { code: string }) => f.code)).toContain('over-limit');
-    await request(t.app).patch(`/api/permits/${ids.northPermit}/limits/${dailyMax.id}`).set('cookie', coordinator).send({ value: 100 }).expect(200);
+    await request(t.app)
+      .patch(`/api/permits/${ids.northPermit}/limits/${dailyMax.id}`)
+      .set('cookie', coordinator)
+      .send({ value: 100 })
+      .expect(200);
   });
 
   describe('refused uploads store nothing', () => {
@@ -107,7 +120,10 @@ describe('lab certificates', () => {
           .post('/api/lab-certificates')
           .set('cookie', coordinator)
           .field('certificate', JSON.stringify(certificateBody(ids)))
-          .attach('file', content, { filename, filepath: filename, contentType: 'application/pdf' } as { filename: string; contentType: string })
+          .attach('file', content, { filename, filepath: filename, contentType: 'application/pdf' } as {
+            filename: string;
+            contentType: string;
+          })
           .expect(status);
         expect(response.body.error.fields).toHaveProperty('file');
         expect(await counts()).toEqual(before);

@@ -8,10 +8,26 @@ import { startTestApp, type TestApp } from '../helpers/test-app.js';
 const header = importColumns.map((column) => column.key).join(',');
 function csvRow(report: string, overrides: Partial<Record<string, string>> = {}): string {
   const values: Record<string, string> = {
-    lab_name: 'Import Lab', lab_accreditation_number: 'IMP-1', report_number: report, received_on: '2026-04-03',
-    discharge_point_code: 'OF-001', collected_at: '2026-04-02 09:30', collected_by: 'Importer', sample_type: 'grab',
-    preservation_confirmed: 'yes', temperature_on_receipt: '4', chain_of_custody_number: 'C-1', parameter_code: 'oil-grease-hem',
-    method: '1664B', qualifier: '', value: '14.2', unit: 'mg/L', mdl: '1.4', ml: '5.0', analysed_at: '2026-04-04 10:00', ...overrides,
+    lab_name: 'Import Lab',
+    lab_accreditation_number: 'IMP-1',
+    report_number: report,
+    received_on: '2026-04-03',
+    discharge_point_code: 'OF-001',
+    collected_at: '2026-04-02 09:30',
+    collected_by: 'Importer',
+    sample_type: 'grab',
+    preservation_confirmed: 'yes',
+    temperature_on_receipt: '4',
+    chain_of_custody_number: 'C-1',
+    parameter_code: 'oil-grease-hem',
+    method: '1664B',
+    qualifier: '',
+    value: '14.2',
+    unit: 'mg/L',
+    mdl: '1.4',
+    ml: '5.0',
+    analysed_at: '2026-04-04 10:00',
+    ...overrides,
   };
   return importColumns.map((column) => values[column.key]).join(',');
 }
@@ -42,7 +58,14 @@ describe('lab results import', () => {
   afterAll(() => t.close());
 
   it('dry-runs without writing, then commits every row of a clean file', async () => {
-    const file = Buffer.from([header, csvRow('IMP-A'), csvRow('IMP-A', { parameter_code: 'ph', method: 'SM 4500-H+ B', value: '7.2', unit: 'SU', mdl: '', ml: '' }), csvRow('IMP-B', { collected_at: '2026-04-09 09:30' })].join('\n'));
+    const file = Buffer.from(
+      [
+        header,
+        csvRow('IMP-A'),
+        csvRow('IMP-A', { parameter_code: 'ph', method: 'SM 4500-H+ B', value: '7.2', unit: 'SU', mdl: '', ml: '' }),
+        csvRow('IMP-B', { collected_at: '2026-04-09 09:30' }),
+      ].join('\n'),
+    );
     const before = await counts();
     const dry = await post(file, 'results.csv', false).expect(200);
     expect(dry.body).toMatchObject({ committed: false, rows: 3, certificates: 2, samples: 2, results: 3, errors: [] });
@@ -53,7 +76,9 @@ describe('lab results import', () => {
   });
 
   it('writes nothing when one row is bad, and names that row and column', async () => {
-    const file = Buffer.from([header, csvRow('IMP-C'), csvRow('IMP-C', { parameter_code: 'ph', value: 'seven', unit: 'SU' }), csvRow('IMP-D')].join('\n'));
+    const file = Buffer.from(
+      [header, csvRow('IMP-C'), csvRow('IMP-C', { parameter_code: 'ph', value: 'seven', unit: 'SU' }), csvRow('IMP-D')].join('\n'),
+    );
     const before = await counts();
     const dry = await post(file, 'results.csv', false).expect(200);
     expect(dry.body.errors).toEqual([{ row: 3, column: 'value', message: 'Not a number' }]);

@@ -22,7 +22,10 @@ describe('GET /api/me', () => {
 
   for (const person of demoPeople) {
     it(`shows ${person.email} as ${person.role} with ${person.sites.length} site(s)`, async () => {
-      const response = await request(t.app).get('/api/me').set('cookie', await t.sessionFor(person.email)).expect(200);
+      const response = await request(t.app)
+        .get('/api/me')
+        .set('cookie', await t.sessionFor(person.email))
+        .expect(200);
       expect(response.body.user).toMatchObject({ email: person.email, role: person.role, name: person.name });
       expect(response.body.sites).toHaveLength(person.sites.length);
       expect(response.body.permissions).toContain('sites.read');
@@ -30,7 +33,9 @@ describe('GET /api/me', () => {
   }
 
   it('shows coordinator.east only the east site', async () => {
-    const response = await request(t.app).get('/api/me').set('cookie', await t.sessionFor('coordinator.east@decant.test'));
+    const response = await request(t.app)
+      .get('/api/me')
+      .set('cookie', await t.sessionFor('coordinator.east@decant.test'));
     expect(response.body.sites.map((site: { name: string }) => site.name)).toEqual(['Orrin Flats Finishing']);
   });
 });

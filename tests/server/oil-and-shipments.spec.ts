@@ -15,9 +15,18 @@ describe('oil log, upkeep and shipments', () => {
   let coordinator: string;
   let belt: { id: string; ratedLitresPerHour: number };
   const shipment = (overrides: Record<string, unknown> = {}) => ({
-    siteId: ids.north, shippedOn: daysAgo(61), documentKind: 'hazardous-waste-manifest', documentNumber: `${100000000 + Math.floor(Math.random() * 899999999)}ABC`,
-    transporterName: 'Test Hauler', transporterEpaId: 'ILR000000001', receiverName: 'Test Recycler', receiverEpaId: 'ILD000000002',
-    wasteDescription: 'Used oil', quantity: 220, quantityUnit: 'gal', ...overrides,
+    siteId: ids.north,
+    shippedOn: daysAgo(61),
+    documentKind: 'hazardous-waste-manifest',
+    documentNumber: `${100000000 + Math.floor(Math.random() * 899999999)}ABC`,
+    transporterName: 'Test Hauler',
+    transporterEpaId: 'ILR000000001',
+    receiverName: 'Test Recycler',
+    receiverEpaId: 'ILD000000002',
+    wasteDescription: 'Used oil',
+    quantity: 220,
+    quantityUnit: 'gal',
+    ...overrides,
   });
 
   beforeAll(async () => {
@@ -32,8 +41,11 @@ describe('oil log, upkeep and shipments', () => {
 
   describe('oil log', () => {
     it('stores litres whatever unit was entered, and lets the operator correct their own entry', async () => {
-      const created = await request(t.app).post('/api/oil-log').set('cookie', operator)
-        .send({ equipmentId: belt.id, collectedOn: today(), volume: 2, unit: 'gal', hoursRun: 8 }).expect(201);
+      const created = await request(t.app)
+        .post('/api/oil-log')
+        .set('cookie', operator)
+        .send({ equipmentId: belt.id, collectedOn: today(), volume: 2, unit: 'gal', hoursRun: 8 })
+        .expect(201);
       expect(created.body.volumeLitres).toBeCloseTo(7.570823568, 6);
       const fixed = await request(t.app).patch(`/api/oil-log/${created.body.id}`).set('cookie', operator).send({ volume: 3 }).expect(200);
       expect(fixed.body.volumeLitres).toBeCloseTo(11.356235352, 6);
@@ -58,20 +70,33 @@ describe('oil log, upkeep and shipments', () => {
       expect(await t.count('oil_log_entry')).toBe(before);
     });
 
-    it("flags a collection faster than the rating over the hours run", async () => {
-      const created = await request(t.app).post('/api/oil-log').set('cookie', operator)
-        .send({ equipmentId: belt.id, collectedOn: today(), volume: belt.ratedLitresPerHour * 2 + 1, unit: 'L', hoursRun: 2 }).expect(201);
+    it('flags a collection faster than the rating over the hours run', async () => {
+      const created = await request(t.app)
+        .post('/api/oil-log')
+        .set('cookie', operator)
+        .send({ equipmentId: belt.id, collectedOn: today(), volume: belt.ratedLitresPerHour * 2 + 1, unit: 'L', hoursRun: 2 })
+        .expect(201);
       expect(created.body.flags.map((f: { code: string }) => f.code)).toEqual(['above-rating']);
     });
 
     it("keeps an operator's older entries and other people's entries for the coordinator, who must give a reason", async () => {
-      const [old] = await t.dataSource.query(`SELECT id FROM oil_log_entry WHERE site_id = $1 AND equipment_id = $2 ORDER BY collected_on LIMIT 1`, [ids.north, belt.id]);
+      const [old] = await t.dataSource.query(
+        `SELECT id FROM oil_log_entry WHERE site_id = $1 AND equipment_id = $2 ORDER BY collected_on LIMIT 1`,
+        [ids.north, belt.id],
+      );
       await t.dataSource.query(`UPDATE oil_log_entry SET created_at = now() - interval '3 days' WHERE id = $1`, [old.id]);
       await request(t.app).patch(`/api/oil-log/${old.id}`).set('cookie', operator).send({ volume: 1 }).expect(403);
       const refused = await request(t.app).patch(`/api/oil-log/${old.id}`).set('cookie', coordinator).send({ volume: 1 }).expect(400);
       expect(refused.body.error.fields).toHaveProperty('reason');
-      await request(t.app).patch(`/api/oil-log/${old.id}`).set('cookie', coordinator).send({ volume: 1, unit: 'gal', reason: 'Drum gauge misread' }).expect(200);
-      const [entry] = await t.dataSource.query(`SELECT after FROM trail_entry WHERE entity_id = $1 AND action = 'update' ORDER BY id DESC LIMIT 1`, [old.id]);
+      await request(t.app)
+        .patch(`/api/oil-log/${old.id}`)
+        .set('cookie', coordinator)
+        .send({ volume: 1, unit: 'gal', reason: 'Drum gauge misread' })
+        .expect(200);
+      const [entry] = await t.dataSource.query(
+        `SELECT after FROM trail_entry WHERE entity_id = $1 AND action = 'update' ORDER BY id DESC LIMIT 1`,
+        [old.id],
+      );
       expect(entry.after.reason).toBe('Drum gauge misread');
     });
 
@@ -85,15 +110,21 @@ describe('oil log, upkeep and shipments', () => {
   describe('upkeep checks', () => {
     it('opens one follow-up for a failed item', async () => {
       const items = upkeepItems.map((item) => ({ key: item.key, outcome: item.key === 'no-leaks' ? 'fail' : 'pass', note: '' }));
-      const created = await request(t.app).post('/api/upkeep-checks').set('cookie', operator)
-        .send({ equipmentId: belt.id, checkedOn: today(), items, immersionValue: 3, immersionUnit: 'in' }).expect(201);
+      const created = await request(t.app)
+        .post('/api/upkeep-checks')
+        .set('cookie', operator)
+        .send({ equipmentId: belt.id, checkedOn: today(), items, immersionValue: 3, immersionUnit: 'in' })
+        .expect(201);
       const followUps = await t.dataSource.query(`SELECT title, status FROM follow_up WHERE source_id = $1`, [created.body.id]);
       expect(followUps).toHaveLength(1);
       expect(followUps[0].title).toMatch(/no leaks/i);
     });
     it('refuses a checklist with an item missing', async () => {
-      const response = await request(t.app).post('/api/upkeep-checks').set('cookie', operator)
-        .send({ equipmentId: belt.id, checkedOn: today(), items: [{ key: 'no-leaks', outcome: 'pass' }] }).expect(400);
+      const response = await request(t.app)
+        .post('/api/upkeep-checks')
+        .set('cookie', operator)
+        .send({ equipmentId: belt.id, checkedOn: today(), items: [{ key: 'no-leaks', outcome: 'pass' }] })
+        .expect(400);
       expect(response.body.error.fields).toHaveProperty('items');
     });
   });
@@ -111,7 +142,11 @@ describe('oil log, upkeep and shipments', () => {
     });
 
     it('flags used oil above 1,000 ppm total halogens (40 CFR 279.10(b)(1)(ii))', async () => {
-      const created = await request(t.app).post('/api/shipments').set('cookie', operator).send(shipment({ shippedOn: daysAgo(2), totalHalogensPpm: 1001 })).expect(201);
+      const created = await request(t.app)
+        .post('/api/shipments')
+        .set('cookie', operator)
+        .send(shipment({ shippedOn: daysAgo(2), totalHalogensPpm: 1001 }))
+        .expect(201);
       expect(created.body.flags.map((f: { code: string }) => f.code)).toEqual(['halogens-presumption']);
     });
 
@@ -131,12 +166,28 @@ describe('oil log, upkeep and shipments', () => {
       expect(await t.count('shipment')).toBe(before);
     });
 
-    it("lets the operator record papers but not change them once the signed copy is in; the coordinator still can", async () => {
-      const created = await request(t.app).post('/api/shipments').set('cookie', operator).send(shipment({ shippedOn: daysAgo(20) })).expect(201);
-      await request(t.app).patch(`/api/shipments/${created.body.id}`).set('cookie', operator).send({ signedCopyReceivedOn: daysAgo(3) }).expect(200);
+    it('lets the operator record papers but not change them once the signed copy is in; the coordinator still can', async () => {
+      const created = await request(t.app)
+        .post('/api/shipments')
+        .set('cookie', operator)
+        .send(shipment({ shippedOn: daysAgo(20) }))
+        .expect(201);
+      await request(t.app)
+        .patch(`/api/shipments/${created.body.id}`)
+        .set('cookie', operator)
+        .send({ signedCopyReceivedOn: daysAgo(3) })
+        .expect(200);
       await request(t.app).patch(`/api/shipments/${created.body.id}`).set('cookie', operator).send({ quantity: 230 }).expect(403);
-      const fixed = await request(t.app).patch(`/api/shipments/${created.body.id}`).set('cookie', coordinator).send({ quantity: 230 }).expect(200);
-      expect({ status: fixed.body.status, quantity: fixed.body.quantity, deadlines: fixed.body.deadlines }).toEqual({ status: 'complete', quantity: 230, deadlines: [] });
+      const fixed = await request(t.app)
+        .patch(`/api/shipments/${created.body.id}`)
+        .set('cookie', coordinator)
+        .send({ quantity: 230 })
+        .expect(200);
+      expect({ status: fixed.body.status, quantity: fixed.body.quantity, deadlines: fixed.body.deadlines }).toEqual({
+        status: 'complete',
+        quantity: 230,
+        deadlines: [],
+      });
     });
 
     it('lets the auditor read only, and keeps coordinator.east to their site', async () => {
@@ -155,13 +206,25 @@ describe('oil log, upkeep and shipments', () => {
   describe('oil on hand', () => {
     it('takes an opening balance from the coordinator only, and counts from the day after it', async () => {
       const operatorCookie = operator;
-      await request(t.app).put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`).set('cookie', operatorCookie).send({ volume: 10, unit: 'gal', on: today() }).expect(403);
-      await request(t.app).put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`).set('cookie', coordinator).send({ volume: 10, unit: 'gal', on: today() }).expect(204);
+      await request(t.app)
+        .put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`)
+        .set('cookie', operatorCookie)
+        .send({ volume: 10, unit: 'gal', on: today() })
+        .expect(403);
+      await request(t.app)
+        .put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`)
+        .set('cookie', coordinator)
+        .send({ volume: 10, unit: 'gal', on: today() })
+        .expect(204);
       const balance = await request(t.app).get(`/api/sites/${ids.east}/oil-on-hand`).set('cookie', coordinator).expect(200);
       // 10 US gal = 37.854 L, kept to the hundredth of a litre.
       expect(balance.body.openingLitres).toBeCloseTo(37.85, 2);
       expect(balance.body.collectedLitres).toBe(0);
-      const refused = await request(t.app).put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`).set('cookie', coordinator).send({ volume: -5, unit: 'gal', on: today() }).expect(400);
+      const refused = await request(t.app)
+        .put(`/api/sites/${ids.east}/oil-on-hand/opening-balance`)
+        .set('cookie', coordinator)
+        .send({ volume: -5, unit: 'gal', on: today() })
+        .expect(400);
       expect(refused.body.error.fields).toHaveProperty('volume');
     });
 
@@ -188,25 +251,43 @@ describe('photos and scans get the same file checks as certificates', () => {
     const coordinator = await t.sessionFor('coordinator@decant.test');
     const [shipment] = await t.dataSource.query('SELECT id FROM shipment WHERE site_id = $1 LIMIT 1', [ids.north]);
     const before = await t.count('stored_file');
-    const scan = await request(t.app).post(`/api/shipments/${shipment.id}/files`).set('cookie', coordinator)
-      .attach('file', Buffer.from('not a scan at all'), 'manifest.pdf').expect(415);
+    const scan = await request(t.app)
+      .post(`/api/shipments/${shipment.id}/files`)
+      .set('cookie', coordinator)
+      .attach('file', Buffer.from('not a scan at all'), 'manifest.pdf')
+      .expect(415);
     expect(scan.body.error.fields).toHaveProperty('file');
-    const photo = await request(t.app).post('/api/upkeep-checks/photos').set('cookie', coordinator)
-      .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), 'wiper.jpg').expect(415);
+    const photo = await request(t.app)
+      .post('/api/upkeep-checks/photos')
+      .set('cookie', coordinator)
+      .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), 'wiper.jpg')
+      .expect(415);
     expect(photo.body.error.fields).toHaveProperty('file');
-    await request(t.app).post('/api/upkeep-checks/photos').set('cookie', coordinator)
-      .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), '../../wiper.jpg', ).expect((res) => expect([400, 415]).toContain(res.status));
+    await request(t.app)
+      .post('/api/upkeep-checks/photos')
+      .set('cookie', coordinator)
+      .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), '../../wiper.jpg')
+      .expect((res) => expect([400, 415]).toContain(res.status));
     expect(await t.count('stored_file')).toBe(before);
   });
 
   it('stores a real PNG photo and a PDF scan with their SHA-256', async () => {
     const coordinator = await t.sessionFor('coordinator@decant.test');
     const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
-    const photo = await request(t.app).post('/api/upkeep-checks/photos').set('cookie', coordinator).attach('file', png, 'wiper.png').expect(201);
+    const photo = await request(t.app)
+      .post('/api/upkeep-checks/photos')
+      .set('cookie', coordinator)
+      .attach('file', png, 'wiper.png')
+      .expect(201);
     expect(photo.body.sha256).toMatch(/^[0-9a-f]{64}$/);
-    const [shipment] = await t.dataSource.query('SELECT id FROM shipment WHERE site_id = $1 AND signed_copy_received_on IS NULL LIMIT 1', [ids.north]);
-    const scanned = await request(t.app).post(`/api/shipments/${shipment.id}/files`).set('cookie', coordinator)
-      .attach('file', Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n'), 'manifest.pdf').expect(201);
+    const [shipment] = await t.dataSource.query('SELECT id FROM shipment WHERE site_id = $1 AND signed_copy_received_on IS NULL LIMIT 1', [
+      ids.north,
+    ]);
+    const scanned = await request(t.app)
+      .post(`/api/shipments/${shipment.id}/files`)
+      .set('cookie', coordinator)
+      .attach('file', Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n'), 'manifest.pdf')
+      .expect(201);
     expect(scanned.body.files.length).toBeGreaterThan(0);
   });
 });

@@ -18,37 +18,102 @@ describe('periods, summaries and follow-ups', () => {
 
   it('compiles a fresh permit fed through the API to the hand-worked values of 40 CFR 122.2', async () => {
     // A monthly NPDES-style permit at a new point, with hand-worked grabs in March 2026.
-    const point = await request(t.app).post(`/api/sites/${ids.north}/discharge-points`).set('cookie', coordinator)
-      .send({ code: 'OF-HW', name: 'Hand-worked outfall', receiving: 'surface-water' }).expect(201);
-    const permit = await request(t.app).post('/api/permits').set('cookie', coordinator).send({
-      siteId: ids.north, kind: 'npdes', number: 'HW-0001', issuingAuthority: 'State agency', effectiveFrom: '2026-03-01', effectiveTo: '2026-03-31',
-      reportingFrequency: 'monthly', reportDueDays: 28, nonDetectPolicy: 'half-mdl',
-    }).expect(201);
-    for (const [statistic, value] of [['daily-maximum', 20], ['monthly-average', 10]] as const) {
-      await request(t.app).post(`/api/permits/${permit.body.id}/limits`).set('cookie', coordinator)
-        .send({ dischargePointId: point.body.id, parameterId: ids.hem, statistic, value, unit: 'mg/L', frequencyCount: 1, frequencyPer: 'week', sampleType: 'grab' }).expect(201);
+    const point = await request(t.app)
+      .post(`/api/sites/${ids.north}/discharge-points`)
+      .set('cookie', coordinator)
+      .send({ code: 'OF-HW', name: 'Hand-worked outfall', receiving: 'surface-water' })
+      .expect(201);
+    const permit = await request(t.app)
+      .post('/api/permits')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        kind: 'npdes',
+        number: 'HW-0001',
+        issuingAuthority: 'State agency',
+        effectiveFrom: '2026-03-01',
+        effectiveTo: '2026-03-31',
+        reportingFrequency: 'monthly',
+        reportDueDays: 28,
+        nonDetectPolicy: 'half-mdl',
+      })
+      .expect(201);
+    for (const [statistic, value] of [
+      ['daily-maximum', 20],
+      ['monthly-average', 10],
+    ] as const) {
+      await request(t.app)
+        .post(`/api/permits/${permit.body.id}/limits`)
+        .set('cookie', coordinator)
+        .send({
+          dischargePointId: point.body.id,
+          parameterId: ids.hem,
+          statistic,
+          value,
+          unit: 'mg/L',
+          frequencyCount: 1,
+          frequencyPer: 'week',
+          sampleType: 'grab',
+        })
+        .expect(201);
     }
     const sample = (collectedAt: string, value: string, qualifier: '<' | null = null) => ({
-      dischargePointId: point.body.id, collectedAt, collectedBy: 'HW', sampleType: 'grab', preservationConfirmed: true, temperatureOnReceiptC: 4,
+      dischargePointId: point.body.id,
+      collectedAt,
+      collectedBy: 'HW',
+      sampleType: 'grab',
+      preservationConfirmed: true,
+      temperatureOnReceiptC: 4,
       results: [{ parameterId: ids.hem, method: '1664B', qualifier, value, mdl: 1.4, ml: 5, unit: 'mg/L', analysedAt: null }],
     });
     // Mar 3: 8 and 12 → daily 10. Mar 10: 24 (over 20). Mar 17: <5.0 → half MDL 0.7. Mar 24 23:30 local: 6.
     // Monthly average = (10 + 24 + 0.7 + 6) / 4 = 10.175 > 10.
-    const samples = [sample('2026-03-03T08:00', '8'), sample('2026-03-03T14:00', '12'), sample('2026-03-10T09:00', '24'),
-      sample('2026-03-17T09:00', '5.0', '<'), sample('2026-03-24T23:30', '6')];
-    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send({
-      siteId: ids.north, labName: 'HW Lab', labAccreditationNumber: 'HW', reportNumber: `HW-${Date.now()}`, receivedOn: '2026-03-26', samples,
-    }).expect(201);
+    const samples = [
+      sample('2026-03-03T08:00', '8'),
+      sample('2026-03-03T14:00', '12'),
+      sample('2026-03-10T09:00', '24'),
+      sample('2026-03-17T09:00', '5.0', '<'),
+      sample('2026-03-24T23:30', '6'),
+    ];
+    await request(t.app)
+      .post('/api/lab-certificates')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        labName: 'HW Lab',
+        labAccreditationNumber: 'HW',
+        reportNumber: `HW-${Date.now()}`,
+        receivedOn: '2026-03-26',
+        samples,
+      })
+      .expect(201);
 
     const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
-    expect(periods.body.items.map((p: { permitNumber: string; startsOn: string; endsOn: string; dueOn: string }) => [p.permitNumber, p.startsOn, p.endsOn, p.dueOn]))
-      .toEqual([['HW-0001', '2026-03-01', '2026-03-31', '2026-04-28']]);
+    expect(
+      periods.body.items.map((p: { permitNumber: string; startsOn: string; endsOn: string; dueOn: string }) => [
+        p.permitNumber,
+        p.startsOn,
+        p.endsOn,
+        p.dueOn,
+      ]),
+    ).toEqual([['HW-0001', '2026-03-01', '2026-03-31', '2026-04-28']]);
     const summary = await request(t.app).get(`/api/periods/${periods.body.items[0].id}/summary`).set('cookie', coordinator).expect(200);
     const byStatistic = Object.fromEntries(summary.body.rows.map((r: { statistic: string }) => [r.statistic, r]));
-    expect(byStatistic['daily-maximum']).toMatchObject({ computedValue: 24, exceeded: true, samplesTaken: 5, limitValue: 20, unit: 'mg/L' });
+    expect(byStatistic['daily-maximum']).toMatchObject({
+      computedValue: 24,
+      exceeded: true,
+      samplesTaken: 5,
+      limitValue: 20,
+      unit: 'mg/L',
+    });
     expect(byStatistic['monthly-average'].computedValue).toBeCloseTo(10.175, 10);
     expect(byStatistic['monthly-average'].exceeded).toBe(true);
-    expect(byStatistic['daily-maximum'].dailyValues.map((d: { day: string }) => d.day)).toEqual(['2026-03-03', '2026-03-10', '2026-03-17', '2026-03-24']);
+    expect(byStatistic['daily-maximum'].dailyValues.map((d: { day: string }) => d.day)).toEqual([
+      '2026-03-03',
+      '2026-03-10',
+      '2026-03-17',
+      '2026-03-24',
+    ]);
     expect(summary.body.nonDetectPolicy).toBe('half-mdl');
     expect(summary.body.significantNoncompliance).toBeNull();
     expect(summary.body.cautions[0]).toMatch(/permit and the control authority decide/);
@@ -57,48 +122,103 @@ describe('periods, summaries and follow-ups', () => {
 
     // Compiling opens the 122.41(l)(6) reports once, however often it runs.
     await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
-    const count = async () => (await t.dataSource.query(`SELECT count(*)::int AS n FROM follow_up WHERE kind IN ('report-within-24-hours', 'written-report')`))[0].n;
+    const count = async () =>
+      (await t.dataSource.query(`SELECT count(*)::int AS n FROM follow_up WHERE kind IN ('report-within-24-hours', 'written-report')`))[0]
+        .n;
     const first = await count();
     expect(first).toBe(2);
     await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
     expect(await count()).toBe(first);
   });
 
-  it('compiles a mass limit (lb/day) from the day\'s concentration and flow, as worked by hand', async () => {
+  it("compiles a mass limit (lb/day) from the day's concentration and flow, as worked by hand", async () => {
     // A pretreatment permit with an oil and grease loading limit of 20 lb/day at a new point, April 2026.
-    const point = await request(t.app).post(`/api/sites/${ids.north}/discharge-points`).set('cookie', coordinator)
-      .send({ code: 'OF-MASS', name: 'Loading outfall', receiving: 'sewer' }).expect(201);
-    const permit = await request(t.app).post('/api/permits').set('cookie', coordinator).send({
-      siteId: ids.north, kind: 'pretreatment', number: 'HW-MASS', issuingAuthority: 'Control authority', effectiveFrom: '2026-04-01', effectiveTo: '2026-04-30',
-      reportingFrequency: 'monthly', reportDueDays: 28, nonDetectPolicy: 'zero',
-    }).expect(201);
-    const limit = (body: Record<string, unknown>) => request(t.app).post(`/api/permits/${permit.body.id}/limits`).set('cookie', coordinator)
-      .send({ dischargePointId: point.body.id, parameterId: ids.hem, statistic: 'daily-maximum', value: 20, unit: 'lb/day', frequencyCount: 1, frequencyPer: 'week', sampleType: 'grab', ...body });
+    const point = await request(t.app)
+      .post(`/api/sites/${ids.north}/discharge-points`)
+      .set('cookie', coordinator)
+      .send({ code: 'OF-MASS', name: 'Loading outfall', receiving: 'sewer' })
+      .expect(201);
+    const permit = await request(t.app)
+      .post('/api/permits')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        kind: 'pretreatment',
+        number: 'HW-MASS',
+        issuingAuthority: 'Control authority',
+        effectiveFrom: '2026-04-01',
+        effectiveTo: '2026-04-30',
+        reportingFrequency: 'monthly',
+        reportDueDays: 28,
+        nonDetectPolicy: 'zero',
+      })
+      .expect(201);
+    const limit = (body: Record<string, unknown>) =>
+      request(t.app)
+        .post(`/api/permits/${permit.body.id}/limits`)
+        .set('cookie', coordinator)
+        .send({
+          dischargePointId: point.body.id,
+          parameterId: ids.hem,
+          statistic: 'daily-maximum',
+          value: 20,
+          unit: 'lb/day',
+          frequencyCount: 1,
+          frequencyPer: 'week',
+          sampleType: 'grab',
+          ...body,
+        });
     const noPh = await limit({ parameterId: ids.ph, value: 10 }).expect(400);
     expect(noPh.body.error.fields.unit).toMatch(/not measured as a concentration/);
     const noInstant = await limit({ statistic: 'instantaneous-maximum' }).expect(400);
     expect(noInstant.body.error.fields.statistic).toMatch(/daily maximum or a monthly average/);
     await limit({}).expect(201);
 
-    for (const [day, value] of [['2026-04-07', 0.05], ['2026-04-14', 50000]] as const) {
-      await request(t.app).post('/api/flow-readings').set('cookie', coordinator)
-        .send({ dischargePointId: point.body.id, day, value, unit: day === '2026-04-07' ? 'MGD' : 'gal/day' }).expect(201);
+    for (const [day, value] of [
+      ['2026-04-07', 0.05],
+      ['2026-04-14', 50000],
+    ] as const) {
+      await request(t.app)
+        .post('/api/flow-readings')
+        .set('cookie', coordinator)
+        .send({ dischargePointId: point.body.id, day, value, unit: day === '2026-04-07' ? 'MGD' : 'gal/day' })
+        .expect(201);
     }
     const sample = (collectedAt: string, value: string) => ({
-      dischargePointId: point.body.id, collectedAt, collectedBy: 'HW', sampleType: 'grab', preservationConfirmed: true, temperatureOnReceiptC: 4,
+      dischargePointId: point.body.id,
+      collectedAt,
+      collectedBy: 'HW',
+      sampleType: 'grab',
+      preservationConfirmed: true,
+      temperatureOnReceiptC: 4,
       results: [{ parameterId: ids.hem, method: '1664B', qualifier: null, value, mdl: 1.4, ml: 5, unit: 'mg/L', analysedAt: null }],
     });
     // Apr 7: 0.05 MGD × 40 mg/L × 8.34 = 16.68 lb/day. Apr 14: 50,000 gal/day = 0.05 MGD × 60 mg/L × 8.34 = 25.02 lb/day, over 20 by 25.1 %.
     // Apr 21: 30 mg/L with no flow reading: no loading can be worked out.
-    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send({
-      siteId: ids.north, labName: 'HW Lab', labAccreditationNumber: 'HW', reportNumber: `HW-M-${Date.now()}`, receivedOn: '2026-04-24',
-      samples: [sample('2026-04-07T09:00', '40'), sample('2026-04-14T09:00', '60'), sample('2026-04-21T09:00', '30')],
-    }).expect(201);
+    await request(t.app)
+      .post('/api/lab-certificates')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        labName: 'HW Lab',
+        labAccreditationNumber: 'HW',
+        reportNumber: `HW-M-${Date.now()}`,
+        receivedOn: '2026-04-24',
+        samples: [sample('2026-04-07T09:00', '40'), sample('2026-04-14T09:00', '60'), sample('2026-04-21T09:00', '30')],
+      })
+      .expect(201);
 
     const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
     const summary = await request(t.app).get(`/api/periods/${periods.body.items[0].id}/summary`).set('cookie', coordinator).expect(200);
     const [row] = summary.body.rows;
-    expect(row).toMatchObject({ unit: 'lb/day', limitValue: 20, exceeded: true, samplesTaken: 3, daysWithoutFlow: ['2026-04-21'], shownValue: '25.0' });
+    expect(row).toMatchObject({
+      unit: 'lb/day',
+      limitValue: 20,
+      exceeded: true,
+      samplesTaken: 3,
+      daysWithoutFlow: ['2026-04-21'],
+      shownValue: '25.0',
+    });
     expect(row.computedValue).toBeCloseTo(25.02, 10);
     expect(row.dailyValues.map((d: { value: number }) => d.value)).toEqual([expect.closeTo(16.68, 10), expect.closeTo(25.02, 10)]);
     expect(row.exceedances).toEqual([expect.objectContaining({ date: '2026-04-14', percentOver: 25.1 })]);
@@ -119,7 +239,8 @@ describe('periods, summaries and follow-ups', () => {
        VALUES ($1, 'pretreatment', 'TICK-1', 'Control authority', '2026-01-01', 'quarterly', 30, 'zero', 8.34, 'calendar-halves') RETURNING id`,
       [ids.north],
     );
-    const count = async () => (await t.dataSource.query('SELECT count(*)::int AS n FROM reporting_period WHERE permit_id = $1', [permit.id]))[0].n;
+    const count = async () =>
+      (await t.dataSource.query('SELECT count(*)::int AS n FROM reporting_period WHERE permit_id = $1', [permit.id]))[0].n;
     const auditor = await t.sessionFor('auditor@decant.test');
     const listed = await request(t.app).get(`/api/periods?permitId=${permit.id}`).set('cookie', auditor).expect(200);
     expect(listed.body.items).toEqual([]);
@@ -131,7 +252,11 @@ describe('periods, summaries and follow-ups', () => {
 
   it('closes a follow-up with a note, in the trail, once', async () => {
     const [open] = await t.dataSource.query(`SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' LIMIT 1`, [ids.north]);
-    const closed = await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator).send({ note: 'Phoned the pretreatment office' }).expect(200);
+    const closed = await request(t.app)
+      .post(`/api/follow-ups/${open.id}/close`)
+      .set('cookie', coordinator)
+      .send({ note: 'Phoned the pretreatment office' })
+      .expect(200);
     expect(['done', 'done-late']).toContain(closed.body.status);
     await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator).send({ note: 'Again' }).expect(409);
     const [entry] = await t.dataSource.query(`SELECT action FROM trail_entry WHERE entity_id = $1`, [open.id]);
@@ -145,7 +270,11 @@ describe('periods, summaries and follow-ups', () => {
     const verdicts = [];
     for (const period of periods.body.items) {
       const summary = await request(t.app).get(`/api/periods/${period.id}/summary`).set('cookie', coordinator).expect(200);
-      verdicts.push(...(summary.body.significantNoncompliance ?? []).filter((v: { parameterName: string }) => v.parameterName.startsWith('Oil and grease')));
+      verdicts.push(
+        ...(summary.body.significantNoncompliance ?? []).filter((v: { parameterName: string }) =>
+          v.parameterName.startsWith('Oil and grease'),
+        ),
+      );
     }
     expect(verdicts.some((v) => v.technicalReview === true && v.chronic === false)).toBe(true);
   });
@@ -164,7 +293,11 @@ describe('periods, summaries and follow-ups', () => {
     expect(mine.body.items.every((p: { siteId: string }) => p.siteId === ids.east)).toBe(true);
     await request(t.app).get('/api/follow-ups').set('cookie', auditor).expect(200);
     const [someFollowUp] = await t.dataSource.query(`SELECT id FROM follow_up WHERE status = 'open' LIMIT 1`);
-    await request(t.app).post(`/api/follow-ups/${someFollowUp.id}/close`).set('cookie', auditor).send({ note: 'Not mine to close' }).expect(403);
+    await request(t.app)
+      .post(`/api/follow-ups/${someFollowUp.id}/close`)
+      .set('cookie', auditor)
+      .send({ note: 'Not mine to close' })
+      .expect(403);
   });
 });
 
@@ -185,9 +318,22 @@ describe('report submission and closing with a file', () => {
     );
     const due = new Date(`${period.due_on}T00:00:00Z`);
     const late = new Date(due.getTime() + 46 * 86_400_000).toISOString().slice(0, 10);
-    const summary = await request(t.app).put(`/api/periods/${period.id}/submission`).set('cookie', coordinator).send({ submittedOn: late }).expect(200);
-    expect(summary.body.reportTimeliness).toMatchObject({ submittedOn: late, daysLate: 46, lateReportDays: 45, significantNoncompliance: true });
-    const refused = await request(t.app).put(`/api/periods/${period.id}/submission`).set('cookie', coordinator).send({ submittedOn: '2000-01-01' }).expect(400);
+    const summary = await request(t.app)
+      .put(`/api/periods/${period.id}/submission`)
+      .set('cookie', coordinator)
+      .send({ submittedOn: late })
+      .expect(200);
+    expect(summary.body.reportTimeliness).toMatchObject({
+      submittedOn: late,
+      daysLate: 46,
+      lateReportDays: 45,
+      significantNoncompliance: true,
+    });
+    const refused = await request(t.app)
+      .put(`/api/periods/${period.id}/submission`)
+      .set('cookie', coordinator)
+      .send({ submittedOn: '2000-01-01' })
+      .expect(400);
     expect(refused.body.error.fields).toHaveProperty('submittedOn');
   });
 
@@ -195,8 +341,12 @@ describe('report submission and closing with a file', () => {
     const coordinator = await t.sessionFor('coordinator@decant.test');
     const [open] = await t.dataSource.query(`SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' LIMIT 1`, [ids.north]);
     const pdf = Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n');
-    const closed = await request(t.app).post(`/api/follow-ups/${open.id}/close`).set('cookie', coordinator)
-      .field('note', 'Notice e-mailed, copy attached').attach('file', pdf, 'notice.pdf').expect(200);
+    const closed = await request(t.app)
+      .post(`/api/follow-ups/${open.id}/close`)
+      .set('cookie', coordinator)
+      .field('note', 'Notice e-mailed, copy attached')
+      .attach('file', pdf, 'notice.pdf')
+      .expect(200);
     expect(closed.body.hasClosingFile).toBe(true);
     const file = await request(t.app).get(`/api/follow-ups/${open.id}/file`).set('cookie', coordinator).expect(200);
     expect(file.headers['content-type']).toBe('application/pdf');

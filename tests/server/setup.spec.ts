@@ -24,7 +24,9 @@ describe('set-up records', () => {
     const fresh = await t.sessionFor('coordinator@decant.test');
     await request(t.app).get(`/api/sites/${created.body.id}`).set('cookie', fresh).expect(200);
     await request(t.app).delete(`/api/sites/${created.body.id}`).set('cookie', fresh).expect(204);
-    const actions = await t.dataSource.query(`SELECT action FROM trail_entry WHERE entity = 'site' AND entity_id = $1 ORDER BY id`, [created.body.id]);
+    const actions = await t.dataSource.query(`SELECT action FROM trail_entry WHERE entity = 'site' AND entity_id = $1 ORDER BY id`, [
+      created.body.id,
+    ]);
     expect(actions.map((a: { action: string }) => a.action)).toEqual(['create', 'delete']);
   });
 
@@ -59,7 +61,7 @@ describe('set-up records', () => {
     expect(renamed.body).toMatchObject({ name: 'Spare sampling tap', active: false });
   });
 
-  it("lets a site add its own parameter to the catalogue, and keeps the shared catalogue unchangeable", async () => {
+  it('lets a site add its own parameter to the catalogue, and keeps the shared catalogue unchangeable', async () => {
     const created = await request(t.app)
       .post('/api/parameters')
       .set('cookie', coordinator)
@@ -77,20 +79,37 @@ describe('set-up records', () => {
       .post('/api/permits')
       .set('cookie', coordinator)
       .send({
-        siteId: ids.north, kind: 'npdes', number: 'IL0099999', issuingAuthority: 'State agency', effectiveFrom: '2026-01-01',
-        reportingFrequency: 'monthly', reportDueDays: 28, nonDetectPolicy: 'half-mdl', massLoadingFactor: 8.3454,
+        siteId: ids.north,
+        kind: 'npdes',
+        number: 'IL0099999',
+        issuingAuthority: 'State agency',
+        effectiveFrom: '2026-01-01',
+        reportingFrequency: 'monthly',
+        reportDueDays: 28,
+        nonDetectPolicy: 'half-mdl',
+        massLoadingFactor: 8.3454,
       })
       .expect(201);
     expect(permit.body).toMatchObject({ kind: 'npdes', massLoadingFactor: 8.3454, lateReportDays: 45, sncWindow: 'calendar-halves' });
     const limit = await request(t.app)
       .post(`/api/permits/${permit.body.id}/limits`)
       .set('cookie', coordinator)
-      .send({ dischargePointId: ids.northOutfall, parameterId: ids.hem, statistic: 'daily-maximum', value: 15, unit: 'mg/L', frequencyCount: 1, frequencyPer: 'week', sampleType: 'grab' })
+      .send({
+        dischargePointId: ids.northOutfall,
+        parameterId: ids.hem,
+        statistic: 'daily-maximum',
+        value: 15,
+        unit: 'mg/L',
+        frequencyCount: 1,
+        frequencyPer: 'week',
+        sampleType: 'grab',
+      })
       .expect(201);
     expect(limit.body.value).toBe(15);
     const entries = await t.dataSource.query(`SELECT entity FROM trail_entry WHERE entity_id IN ($1, $2)`, [permit.body.id, limit.body.id]);
     expect(entries.map((e: { entity: string }) => e.entity).sort()).toEqual(['limit', 'permit']);
-    const flagged = async () => (await t.dataSource.query(`SELECT count(*)::int AS n FROM lab_result WHERE 'over-limit' = ANY(flag_codes)`))[0].n;
+    const flagged = async () =>
+      (await t.dataSource.query(`SELECT count(*)::int AS n FROM lab_result WHERE 'over-limit' = ANY(flag_codes)`))[0].n;
     const withStrictLimit = await flagged();
     await request(t.app).delete(`/api/permits/${permit.body.id}`).set('cookie', coordinator).expect(204);
     expect(await flagged()).toBeLessThan(withStrictLimit);

@@ -79,10 +79,9 @@ describe('user administration routes', () => {
       .send({ role: 'coordinator', siteIds: [siteIds[1]] })
       .expect(200);
     expect(updated.body).toMatchObject({ role: 'coordinator', siteIds: [siteIds[1]] });
-    const [entry] = await t.dataSource.query(
-      `SELECT before, after FROM trail_entry WHERE entity_id = $1 AND action = 'update'`,
-      [created.body.id],
-    );
+    const [entry] = await t.dataSource.query(`SELECT before, after FROM trail_entry WHERE entity_id = $1 AND action = 'update'`, [
+      created.body.id,
+    ]);
     expect(entry.before.role).toBe('auditor');
     expect(entry.after.role).toBe('coordinator');
     expect(auditor).toBeTruthy();

@@ -1,12 +1,30 @@
 import { describe, expect, it } from 'vitest';
-import { checkResult, checkSample, holdingTimeExceeded, type LimitFacts, type ResultFacts, type SampleFacts } from '../../server/domain/lab-checks.js';
+import {
+  checkResult,
+  checkSample,
+  holdingTimeExceeded,
+  type LimitFacts,
+  type ResultFacts,
+  type SampleFacts,
+} from '../../server/domain/lab-checks.js';
 import { convert } from '../../server/domain/units.js';
 
 const zone = 'America/Chicago';
-const sample: SampleFacts = { collectedAt: new Date('2026-03-02T15:00:00Z'), sampleType: 'grab', preservationConfirmed: true, temperatureOnReceiptC: 4 };
+const sample: SampleFacts = {
+  collectedAt: new Date('2026-03-02T15:00:00Z'),
+  sampleType: 'grab',
+  preservationConfirmed: true,
+  temperatureOnReceiptC: 4,
+};
 const hem: ResultFacts = {
-  parameterName: 'Oil and grease (HEM)', fraction: 'HEM', method: '1664B', qualifier: null, valueReported: '12.3',
-  unit: 'mg/L', minimumLevel: 5, analysedAt: new Date('2026-03-05T15:00:00Z'),
+  parameterName: 'Oil and grease (HEM)',
+  fraction: 'HEM',
+  method: '1664B',
+  qualifier: null,
+  valueReported: '12.3',
+  unit: 'mg/L',
+  minimumLevel: 5,
+  analysedAt: new Date('2026-03-05T15:00:00Z'),
 };
 const dailyMax: LimitFacts = { statistic: 'daily-maximum', value: 100, unit: 'mg/L', sampleType: 'grab' };
 const codes = (flags: Array<{ code: string }>) => flags.map((flag) => flag.code);
@@ -76,7 +94,7 @@ describe('limits', () => {
   it('converts units before comparing: 120 000 µg/L is 120 mg/L', () => {
     expect(codes(checkResult({ ...hem, valueReported: '120000', unit: 'µg/L' }, sample, [dailyMax], zone))).toContain('over-limit');
   });
-  it('leaves a mass limit (lb/day) to the period summary: one result without its day\'s flow is no loading', () => {
+  it("leaves a mass limit (lb/day) to the period summary: one result without its day's flow is no loading", () => {
     const loading = { ...dailyMax, value: 10, unit: 'lb/day' };
     expect(codes(checkResult({ ...hem, valueReported: '500' }, sample, [loading], zone))).not.toContain('over-limit');
     expect(codes(checkResult({ ...hem, valueReported: '500' }, sample, [loading], zone))).not.toContain('unit-not-convertible');
@@ -93,7 +111,9 @@ describe('limits', () => {
     expect(codes(checkResult(hem, sample, [], zone))).toEqual(['no-limit']);
   });
   it('flags analysis before collection', () => {
-    expect(codes(checkResult({ ...hem, analysedAt: new Date('2026-03-01T00:00:00Z') }, sample, [dailyMax], zone))).toContain('analysed-before-collected');
+    expect(codes(checkResult({ ...hem, analysedAt: new Date('2026-03-01T00:00:00Z') }, sample, [dailyMax], zone))).toContain(
+      'analysed-before-collected',
+    );
   });
 });
 

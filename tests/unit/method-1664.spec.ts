@@ -19,10 +19,18 @@ describe('EPA Method 1664 Rev. B constants', () => {
 
   it('carries Table 1 acceptance criteria for HEM and SGT-HEM', () => {
     expect(acceptanceCriteria.HEM).toEqual({
-      iprPrecisionMax: 11, iprRecovery: { min: 83, max: 101 }, matrixSpike: { min: 78, max: 114 }, rpdMax: 18, opr: { min: 78, max: 114 },
+      iprPrecisionMax: 11,
+      iprRecovery: { min: 83, max: 101 },
+      matrixSpike: { min: 78, max: 114 },
+      rpdMax: 18,
+      opr: { min: 78, max: 114 },
     });
     expect(acceptanceCriteria['SGT-HEM']).toEqual({
-      iprPrecisionMax: 28, iprRecovery: { min: 83, max: 116 }, matrixSpike: { min: 64, max: 132 }, rpdMax: 34, opr: { min: 64, max: 132 },
+      iprPrecisionMax: 28,
+      iprRecovery: { min: 83, max: 116 },
+      matrixSpike: { min: 64, max: 132 },
+      rpdMax: 34,
+      opr: { min: 64, max: 132 },
     });
   });
 });
@@ -46,25 +54,43 @@ describe('spike recovery and RPD (Method 1664 Rev. B §9.3)', () => {
 });
 
 describe('QC windows at their edges (Method 1664 Rev. B, Table 1)', () => {
-  const blank: Omit<QcFacts, 'fraction'> = { oprRecoveryPct: null, msRecoveryPct: null, msdRecoveryPct: null, rpdPct: null, methodBlank: null, spike: null };
+  const blank: Omit<QcFacts, 'fraction'> = {
+    oprRecoveryPct: null,
+    msRecoveryPct: null,
+    msdRecoveryPct: null,
+    rpdPct: null,
+    methodBlank: null,
+    spike: null,
+  };
   const codes = (qc: Partial<QcFacts> & { fraction: 'HEM' | 'SGT-HEM' }) => checkQcBatch({ ...blank, ...qc }).map((f) => f.code);
 
   it.each([
-    ['HEM', 78, []], ['HEM', 114, []], ['HEM', 77.9, ['qc-opr']], ['HEM', 114.1, ['qc-opr']],
-    ['SGT-HEM', 64, []], ['SGT-HEM', 132, []], ['SGT-HEM', 63.9, ['qc-opr']], ['SGT-HEM', 132.1, ['qc-opr']],
+    ['HEM', 78, []],
+    ['HEM', 114, []],
+    ['HEM', 77.9, ['qc-opr']],
+    ['HEM', 114.1, ['qc-opr']],
+    ['SGT-HEM', 64, []],
+    ['SGT-HEM', 132, []],
+    ['SGT-HEM', 63.9, ['qc-opr']],
+    ['SGT-HEM', 132.1, ['qc-opr']],
   ] as const)('%s OPR recovery %s %% → %j', (fraction, opr, expected) => {
     expect(codes({ fraction, oprRecoveryPct: opr })).toEqual(expected);
   });
 
   it.each([
-    ['HEM', 18, []], ['HEM', 18.1, ['qc-rpd']], ['SGT-HEM', 34, []], ['SGT-HEM', 34.1, ['qc-rpd']],
+    ['HEM', 18, []],
+    ['HEM', 18.1, ['qc-rpd']],
+    ['SGT-HEM', 34, []],
+    ['SGT-HEM', 34.1, ['qc-rpd']],
   ] as const)('%s MS/MSD RPD %s %% → %j', (fraction, rpd, expected) => {
     expect(codes({ fraction, rpdPct: rpd })).toEqual(expected);
   });
 
   it.each([
-    ['HEM', 78, 114, []], ['HEM', 77.9, 114.1, ['qc-ms-recovery', 'qc-msd-recovery']],
-    ['SGT-HEM', 64, 132, []], ['SGT-HEM', 63.9, 132.1, ['qc-ms-recovery', 'qc-msd-recovery']],
+    ['HEM', 78, 114, []],
+    ['HEM', 77.9, 114.1, ['qc-ms-recovery', 'qc-msd-recovery']],
+    ['SGT-HEM', 64, 132, []],
+    ['SGT-HEM', 63.9, 132.1, ['qc-ms-recovery', 'qc-msd-recovery']],
   ] as const)('%s MS %s %% and MSD %s %% → %j', (fraction, ms, msd, expected) => {
     expect(codes({ fraction, msRecoveryPct: ms, msdRecoveryPct: msd })).toEqual(expected);
   });
@@ -85,7 +111,15 @@ describe('QC windows at their edges (Method 1664 Rev. B, Table 1)', () => {
 
 describe('reporting precision (Method 1664 Rev. B §12.3)', () => {
   it.each([
-    ['12.3', 3], ['12.34', 4], ['8.2', 2], ['8.25', 3], ['120', 2], ['120.', 3], ['0.050', 2], ['12.0', 3], ['5', 1],
+    ['12.3', 3],
+    ['12.34', 4],
+    ['8.2', 2],
+    ['8.25', 3],
+    ['120', 2],
+    ['120.', 3],
+    ['0.050', 2],
+    ['12.0', 3],
+    ['5', 1],
   ])('counts %s as %i significant figures', (text, expected) => {
     expect(significantFigures(text)).toBe(expected);
   });
@@ -96,7 +130,12 @@ describe('reporting precision (Method 1664 Rev. B §12.3)', () => {
   });
 
   it.each([
-    [12.34, '12.3'], [8.25, '8.3'], [9.87, '9.9'], [12, '12.0'], [1234, '1230'], [6.1, '6.1'],
+    [12.34, '12.3'],
+    [8.25, '8.3'],
+    [9.87, '9.9'],
+    [12, '12.0'],
+    [1234, '1230'],
+    [6.1, '6.1'],
   ])('shows %s mg/L as %s', (value, shown) => {
     expect(toMethodPrecision(value)).toBe(shown);
   });

@@ -1,13 +1,19 @@
 import { unit } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import { collectionFlags, likelyUndersized, oilOnHand, physicallyPossible, ratingLitresPerHour } from '../../server/domain/oil-collection.js';
+import {
+  collectionFlags,
+  likelyUndersized,
+  oilOnHand,
+  physicallyPossible,
+  ratingLitresPerHour,
+} from '../../server/domain/oil-collection.js';
 import { convert } from '../../server/domain/units.js';
 
 describe('gallons and litres', () => {
   it('uses the exact US gallon of NIST Handbook 44 (231 in³ = 3.785411784 L)', () => {
     expect(convert(1, 'gal', 'L')).toBe(3.785411784);
     // 231 cubic inches × (2.54 cm)³ = 3785.411784 cm³, by definition.
-    expect(231 * 2.54 ** 3 / 1000).toBeCloseTo(3.785411784, 12);
+    expect((231 * 2.54 ** 3) / 1000).toBeCloseTo(3.785411784, 12);
   });
   it.each([1, 55, 275, 1320])('agrees with mathjs (a general-purpose units library) for %s gal', (gallons) => {
     expect(convert(gallons, 'gal', 'L')).toBeCloseTo(unit(gallons, 'gal').toNumber('L'), 9);
@@ -44,10 +50,14 @@ describe('oil on hand', () => {
     expect(balance.flags.map((f) => f.code)).toEqual(['negative-balance']);
   });
   it('warns above the storage capacity', () => {
-    expect(oilOnHand({ openingLitres: 0, collectedLitres: 501 * gal, shippedLitres: 0, capacityGallons: 500 }).flags.map((f) => f.code)).toEqual(['above-capacity']);
+    expect(
+      oilOnHand({ openingLitres: 0, collectedLitres: 501 * gal, shippedLitres: 0, capacityGallons: 500 }).flags.map((f) => f.code),
+    ).toEqual(['above-capacity']);
   });
   it('cautions above 1,320 US gal of aggregate storage (40 CFR 112.1(d)(2)(ii)), not at it', () => {
     expect(oilOnHand({ openingLitres: 0, collectedLitres: 0, shippedLitres: 0, capacityGallons: 1320 }).flags).toEqual([]);
-    expect(oilOnHand({ openingLitres: 0, collectedLitres: 0, shippedLitres: 0, capacityGallons: 1321 }).flags.map((f) => f.code)).toEqual(['spcc-threshold']);
+    expect(oilOnHand({ openingLitres: 0, collectedLitres: 0, shippedLitres: 0, capacityGallons: 1321 }).flags.map((f) => f.code)).toEqual([
+      'spcc-threshold',
+    ]);
   });
 });

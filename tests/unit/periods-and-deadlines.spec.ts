@@ -21,29 +21,60 @@ describe('obligations after a violation', () => {
 
 describe('reporting periods', () => {
   it('cuts semiannual periods on calendar halves, clipped to the effective date, with the due date after the end', () => {
-    expect(reportingPeriods({ effectiveFrom: '2025-03-15', effectiveTo: null, reportingFrequency: 'semiannual', reportDueDays: 30 }, '2026-02-01')).toEqual([
+    expect(
+      reportingPeriods(
+        { effectiveFrom: '2025-03-15', effectiveTo: null, reportingFrequency: 'semiannual', reportDueDays: 30 },
+        '2026-02-01',
+      ),
+    ).toEqual([
       { startsOn: '2025-03-15', endsOn: '2025-06-30', dueOn: '2025-07-30' },
       { startsOn: '2025-07-01', endsOn: '2025-12-31', dueOn: '2026-01-30' },
       { startsOn: '2026-01-01', endsOn: '2026-06-30', dueOn: '2026-07-30' },
     ]);
   });
   it('cuts quarters and months, and stops at the permit end', () => {
-    expect(reportingPeriods({ effectiveFrom: '2026-01-01', effectiveTo: '2026-05-15', reportingFrequency: 'quarterly', reportDueDays: 28 }, '2026-12-31').map((p) => [p.startsOn, p.endsOn])).toEqual([
-      ['2026-01-01', '2026-03-31'], ['2026-04-01', '2026-05-15'],
+    expect(
+      reportingPeriods(
+        { effectiveFrom: '2026-01-01', effectiveTo: '2026-05-15', reportingFrequency: 'quarterly', reportDueDays: 28 },
+        '2026-12-31',
+      ).map((p) => [p.startsOn, p.endsOn]),
+    ).toEqual([
+      ['2026-01-01', '2026-03-31'],
+      ['2026-04-01', '2026-05-15'],
     ]);
-    expect(reportingPeriods({ effectiveFrom: '2026-01-01', effectiveTo: null, reportingFrequency: 'monthly', reportDueDays: 15 }, '2026-02-10').map((p) => p.dueOn)).toEqual(['2026-02-15', '2026-03-15']);
+    expect(
+      reportingPeriods(
+        { effectiveFrom: '2026-01-01', effectiveTo: null, reportingFrequency: 'monthly', reportDueDays: 15 },
+        '2026-02-10',
+      ).map((p) => p.dueOn),
+    ).toEqual(['2026-02-15', '2026-03-15']);
   });
 });
 
 describe('late reports (40 CFR 403.8(f)(2)(viii)(F); 45 days from memory, the permit setting decides)', async () => {
   const { reportTimeliness } = await import('../../server/domain/report-timeliness.js');
   it('is significant only more than the threshold after the due date', () => {
-    expect(reportTimeliness('2026-01-30', '2026-03-16', '2026-06-01', 45, 'pretreatment')).toMatchObject({ daysLate: 45, significantNoncompliance: false });
-    expect(reportTimeliness('2026-01-30', '2026-03-17', '2026-06-01', 45, 'pretreatment')).toMatchObject({ daysLate: 46, significantNoncompliance: true });
-    expect(reportTimeliness('2026-01-30', '2026-03-02', '2026-06-01', 30, 'pretreatment')).toMatchObject({ daysLate: 31, significantNoncompliance: true });
+    expect(reportTimeliness('2026-01-30', '2026-03-16', '2026-06-01', 45, 'pretreatment')).toMatchObject({
+      daysLate: 45,
+      significantNoncompliance: false,
+    });
+    expect(reportTimeliness('2026-01-30', '2026-03-17', '2026-06-01', 45, 'pretreatment')).toMatchObject({
+      daysLate: 46,
+      significantNoncompliance: true,
+    });
+    expect(reportTimeliness('2026-01-30', '2026-03-02', '2026-06-01', 30, 'pretreatment')).toMatchObject({
+      daysLate: 31,
+      significantNoncompliance: true,
+    });
   });
   it('counts an unsent report up to today, and gives no verdict for a direct-discharge permit', () => {
-    expect(reportTimeliness('2026-01-30', null, '2026-02-09', 45, 'pretreatment')).toMatchObject({ daysLate: 10, significantNoncompliance: false });
-    expect(reportTimeliness('2026-01-30', '2026-01-20', '2026-06-01', 45, 'npdes')).toMatchObject({ daysLate: 0, significantNoncompliance: null });
+    expect(reportTimeliness('2026-01-30', null, '2026-02-09', 45, 'pretreatment')).toMatchObject({
+      daysLate: 10,
+      significantNoncompliance: false,
+    });
+    expect(reportTimeliness('2026-01-30', '2026-01-20', '2026-06-01', 45, 'npdes')).toMatchObject({
+      daysLate: 0,
+      significantNoncompliance: null,
+    });
   });
 });

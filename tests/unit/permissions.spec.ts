@@ -1,17 +1,58 @@
 import { describe, expect, it } from 'vitest';
-import { actions, can, landingPageOf, mayCorrectOilLogEntry, permissionsOf, roles, type Action, type Role } from '../../server/contracts/permissions.js';
+import {
+  actions,
+  can,
+  landingPageOf,
+  mayCorrectOilLogEntry,
+  permissionsOf,
+  roles,
+  type Action,
+  type Role,
+} from '../../server/contracts/permissions.js';
 
 // The expected grid, written out by hand from the roles in the product brief: a change to the
 // table must be a deliberate change to this grid too.
 const expected: Record<Role, Action[]> = {
   administrator: ['users.read', 'users.manage', 'sites.read', 'trail.read', 'trail.read-siteless'],
   coordinator: [
-    'sites.read', 'setup.manage', 'lab.read', 'lab.write', 'oil-log.read', 'oil-log.write', 'shipments.read',
-    'shipments.write', 'periods.read', 'periods.compile', 'follow-ups.read', 'follow-ups.close', 'trail.read', 'tools.use',
-    'oil-log.correct-any', 'shipments.change-after-signed-copy',
+    'sites.read',
+    'setup.manage',
+    'lab.read',
+    'lab.write',
+    'oil-log.read',
+    'oil-log.write',
+    'shipments.read',
+    'shipments.write',
+    'periods.read',
+    'periods.compile',
+    'follow-ups.read',
+    'follow-ups.close',
+    'trail.read',
+    'tools.use',
+    'oil-log.correct-any',
+    'shipments.change-after-signed-copy',
   ],
-  operator: ['sites.read', 'lab.read', 'oil-log.read', 'oil-log.write', 'shipments.read', 'shipments.write', 'follow-ups.read', 'tools.use'],
-  auditor: ['sites.read', 'lab.read', 'oil-log.read', 'shipments.read', 'periods.read', 'follow-ups.read', 'trail.read', 'tools.use', 'trail.read-siteless'],
+  operator: [
+    'sites.read',
+    'lab.read',
+    'oil-log.read',
+    'oil-log.write',
+    'shipments.read',
+    'shipments.write',
+    'follow-ups.read',
+    'tools.use',
+  ],
+  auditor: [
+    'sites.read',
+    'lab.read',
+    'oil-log.read',
+    'shipments.read',
+    'periods.read',
+    'follow-ups.read',
+    'trail.read',
+    'tools.use',
+    'trail.read-siteless',
+  ],
 };
 
 describe('permission table', () => {

@@ -6,7 +6,9 @@ import { usedOilFlags, type UsedOilAnalysis } from '../../server/domain/used-oil
 const shipped = '2026-01-10';
 const dayAfter = (days: number) => new Date(Date.UTC(2026, 0, 10 + days)).toISOString().slice(0, 10);
 const stepsOverdue = (status: 'large' | 'small' | 'very-small', rule: 'current' | 'before-2025', day: number) =>
-  manifestDeadlines(status, rule, shipped).filter((d) => isOverdue(d.dueOn, dayAfter(day))).map((d) => d.step);
+  manifestDeadlines(status, rule, shipped)
+    .filter((d) => isOverdue(d.dueOn, dayAfter(day)))
+    .map((d) => d.step);
 
 describe('signed-copy deadlines (40 CFR 262.42), counted from acceptance by the initial transporter', () => {
   it('large quantity generator, current rule (e-Manifest rule, 2025): contact at 45 days, exception report at 60', () => {
@@ -40,7 +42,15 @@ describe('signed-copy deadlines (40 CFR 262.42), counted from acceptance by the 
 });
 
 describe('used oil (40 CFR 279)', () => {
-  const base: UsedOilAnalysis = { totalHalogensPpm: null, burnedAsFuel: false, arsenicPpm: null, cadmiumPpm: null, chromiumPpm: null, leadPpm: null, flashPointF: null };
+  const base: UsedOilAnalysis = {
+    totalHalogensPpm: null,
+    burnedAsFuel: false,
+    arsenicPpm: null,
+    cadmiumPpm: null,
+    chromiumPpm: null,
+    leadPpm: null,
+    flashPointF: null,
+  };
   const codes = (analysis: Partial<UsedOilAnalysis>) => usedOilFlags({ ...base, ...analysis }).map((f) => f.code);
 
   it('presumes mixing only above 1,000 ppm total halogens: "more than" (279.10(b)(1)(ii))', () => {
@@ -50,7 +60,10 @@ describe('used oil (40 CFR 279)', () => {
   });
 
   it.each([
-    ['arsenicPpm', 5, 5.01], ['cadmiumPpm', 2, 2.01], ['chromiumPpm', 10, 10.01], ['leadPpm', 100, 100.1],
+    ['arsenicPpm', 5, 5.01],
+    ['cadmiumPpm', 2, 2.01],
+    ['chromiumPpm', 10, 10.01],
+    ['leadPpm', 100, 100.1],
   ] as const)('holds %s at its 279.11 Table 1 maximum %s and flags %s', (field, edge, over) => {
     expect(codes({ burnedAsFuel: true, [field]: edge })).toEqual([]);
     expect(codes({ burnedAsFuel: true, [field]: over })).toEqual(['off-specification']);
@@ -72,12 +85,18 @@ describe('used oil (40 CFR 279)', () => {
 });
 
 describe("formats from EPA's manifest instructions (EPA Form 8700-22; 40 CFR 262.21(f)(2))", () => {
-  it.each([['123456789JJK', true], ['12345678JJK', false], ['123456789JJ1', false], ['123456789jjk', false], ['A23456789JJK', false]])(
-    'tracking number %s → %s',
-    (value, ok) => expect(MANIFEST_TRACKING_NUMBER.test(value)).toBe(ok),
-  );
-  it.each([['ILD000123456', true], ['IL0000123456', true], ['ILD00012345', false], ['1LD000123456', false], ['ild000123456', false]])(
-    'EPA ID %s → %s',
-    (value, ok) => expect(EPA_ID_NUMBER.test(value)).toBe(ok),
-  );
+  it.each([
+    ['123456789JJK', true],
+    ['12345678JJK', false],
+    ['123456789JJ1', false],
+    ['123456789jjk', false],
+    ['A23456789JJK', false],
+  ])('tracking number %s → %s', (value, ok) => expect(MANIFEST_TRACKING_NUMBER.test(value)).toBe(ok));
+  it.each([
+    ['ILD000123456', true],
+    ['IL0000123456', true],
+    ['ILD00012345', false],
+    ['1LD000123456', false],
+    ['ild000123456', false],
+  ])('EPA ID %s → %s', (value, ok) => expect(EPA_ID_NUMBER.test(value)).toBe(ok));
 });

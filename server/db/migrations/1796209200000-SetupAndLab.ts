@@ -27,7 +27,9 @@ export class SetupAndLab1796209200000 implements MigrationInterface {
       created_at timestamptz NOT NULL DEFAULT now(),
       updated_at timestamptz NOT NULL DEFAULT now()
     )`);
-    await q.query(`CREATE UNIQUE INDEX "UQ_parameter_code" ON parameter (coalesce(site_id, '00000000-0000-0000-0000-000000000000'::uuid), code)`);
+    await q.query(
+      `CREATE UNIQUE INDEX "UQ_parameter_code" ON parameter (coalesce(site_id, '00000000-0000-0000-0000-000000000000'::uuid), code)`,
+    );
     // The shared catalogue. The technical-review factor is 40 CFR 403.8(f)(2)(viii)(B): 1.4 for BOD,
     // TSS, fats, oil and grease; 1.2 for other pollutants; none for pH (and for flow, not a pollutant).
     await q.query(`INSERT INTO parameter (code, name, fraction, default_unit, snc_review_factor) VALUES
@@ -154,7 +156,17 @@ export class SetupAndLab1796209200000 implements MigrationInterface {
   }
 
   async down(q: QueryRunner): Promise<void> {
-    for (const table of ['lab_result', 'lab_sample', 'qc_batch', 'lab_certificate', 'stored_file', 'permit_limit', 'permit', 'parameter', 'discharge_point']) {
+    for (const table of [
+      'lab_result',
+      'lab_sample',
+      'qc_batch',
+      'lab_certificate',
+      'stored_file',
+      'permit_limit',
+      'permit',
+      'parameter',
+      'discharge_point',
+    ]) {
       await q.query(`DROP TABLE ${table}`);
     }
   }

@@ -106,7 +106,8 @@ export class OilAndShipments1796212800000 implements MigrationInterface {
   }
 
   async down(q: QueryRunner): Promise<void> {
-    for (const table of ['follow_up', 'shipment_file', 'shipment', 'upkeep_check', 'oil_log_entry', 'equipment']) await q.query(`DROP TABLE ${table}`);
+    for (const table of ['follow_up', 'shipment_file', 'shipment', 'upkeep_check', 'oil_log_entry', 'equipment'])
+      await q.query(`DROP TABLE ${table}`);
     await q.query('ALTER TABLE site DROP COLUMN oil_opening_balance_litres, DROP COLUMN oil_opening_balance_on');
     await q.query('ALTER TABLE app_user DROP COLUMN unit_system');
   }

@@ -6,4 +6,11 @@ import { ReportSubmissions1796220000000 } from './1796220000000-ReportSubmission
 import { MassLimits1796223600000 } from './1796223600000-MassLimits.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
-export const migrations = [Foundation1796205600000, SetupAndLab1796209200000, OilAndShipments1796212800000, Periods1796216400000, ReportSubmissions1796220000000, MassLimits1796223600000];
+export const migrations = [
+  Foundation1796205600000,
+  SetupAndLab1796209200000,
+  OilAndShipments1796212800000,
+  Periods1796216400000,
+  ReportSubmissions1796220000000,
+  MassLimits1796223600000,
+];

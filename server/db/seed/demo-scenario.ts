@@ -39,10 +39,28 @@ export interface DemoPerson {
 
 export const demoPeople: DemoPerson[] = [
   { email: 'admin@decant.test', name: 'Dana Whitfield', role: 'administrator', sites: ['north', 'east'], duty: 'manages who may sign in' },
-  { email: 'coordinator@decant.test', name: 'Priya Raman', role: 'coordinator', sites: ['north', 'east'], duty: 'EHS coordinator, both sites' },
-  { email: 'coordinator.east@decant.test', name: 'Tomas Reyes', role: 'coordinator', sites: ['east'], duty: 'EHS coordinator, Orrin Flats only' },
+  {
+    email: 'coordinator@decant.test',
+    name: 'Priya Raman',
+    role: 'coordinator',
+    sites: ['north', 'east'],
+    duty: 'EHS coordinator, both sites',
+  },
+  {
+    email: 'coordinator.east@decant.test',
+    name: 'Tomas Reyes',
+    role: 'coordinator',
+    sites: ['east'],
+    duty: 'EHS coordinator, Orrin Flats only',
+  },
   { email: 'operator@decant.test', name: 'Luis Okafor', role: 'operator', sites: ['north', 'east'], duty: 'logs skimmers and shipments' },
-  { email: 'auditor@decant.test', name: 'Margit Sand', role: 'auditor', sites: ['north', 'east'], duty: 'reads everything, changes nothing' },
+  {
+    email: 'auditor@decant.test',
+    name: 'Margit Sand',
+    role: 'auditor',
+    sites: ['north', 'east'],
+    duty: 'reads everything, changes nothing',
+  },
 ];
 
 /** The fake identity provider's shared demo password (idp/accounts.ts holds the same). */

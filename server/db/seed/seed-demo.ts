@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
-import { Company } from '../../features/sites/company.entity.js';
-import { Site } from '../../features/sites/site.entity.js';
-import { User } from '../../features/users/user.entity.js';
+import { Company } from '../../kernel/sites/company.entity.js';
+import { Site } from '../../kernel/sites/site.entity.js';
+import { User } from '../../kernel/people/user.entity.js';
 import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
 import { seedLab } from './seed-lab.js';
 import { seedOil } from './seed-oil.js';
@@ -45,13 +45,21 @@ export async function seedDemo(dataSource: DataSource): Promise<void> {
       { id: coordinator.id, email: coordinator.email, name: coordinator.name, role: 'coordinator', siteIds: [north.id, east.id] },
     );
     const operator = (await manager.findOneBy(User, { email: 'operator@decant.test' }))!;
-    await seedOil(manager, [
-      { key: 'north', id: north.id, timeZone: north.timeZone },
-      { key: 'east', id: east.id, timeZone: east.timeZone },
-    ], operator.id);
-    await seedFlowsAndPeriods(manager, [
-      { id: north.id, timeZone: north.timeZone, outfall: 'OF-001', gallonsPerDay: 35000 },
-      { id: east.id, timeZone: east.timeZone, outfall: 'OF-002', gallonsPerDay: 15000 },
-    ], coordinator);
+    await seedOil(
+      manager,
+      [
+        { key: 'north', id: north.id, timeZone: north.timeZone },
+        { key: 'east', id: east.id, timeZone: east.timeZone },
+      ],
+      operator.id,
+    );
+    await seedFlowsAndPeriods(
+      manager,
+      [
+        { id: north.id, timeZone: north.timeZone, outfall: 'OF-001', gallonsPerDay: 35000 },
+        { id: east.id, timeZone: east.timeZone, outfall: 'OF-002', gallonsPerDay: 15000 },
+      ],
+      coordinator,
+    );
   });
 }

@@ -23,14 +23,32 @@ interface Twist {
 }
 const twists: Record<'north' | 'east', Record<number, Twist>> = {
   north: {
-    3: { hem: '5.0', ph: '7.4' }, 5: { hem: '126' }, 8: { opr: 76 }, 11: { analysedAfterDays: 31 }, 14: { sampleType: 'composite' },
+    3: { hem: '5.0', ph: '7.4' },
+    5: { hem: '126' },
+    8: { opr: 76 },
+    11: { analysedAfterDays: 31 },
+    14: { sampleType: 'composite' },
     // January–June of the second year: 7 of 11 results at or above 1.4 × the 100 mg/L daily
     // maximum (technical review criteria met), fewer than 66 % over it (not chronic).
-    16: { hem: '146' }, 17: { hem: '150' }, 18: { hem: '145' }, 19: { hem: '152' }, 20: { hem: '141' }, 21: { hem: '23.47' }, 22: { hem: '148' }, 23: { hem: '143' }, 24: { hem: '5.0' }, 26: { hem: '58.2' }, 27: { hem: '61.0' },
+    16: { hem: '146' },
+    17: { hem: '150' },
+    18: { hem: '145' },
+    19: { hem: '152' },
+    20: { hem: '141' },
+    21: { hem: '23.47' },
+    22: { hem: '148' },
+    23: { hem: '143' },
+    24: { hem: '5.0' },
+    26: { hem: '58.2' },
+    27: { hem: '61.0' },
   },
   east: {
-    4: { temperature: 8.2 }, 6: { preservation: false }, 9: { hem: '112' }, 10: { spike: { spikeTrue: 40, spikeBackground: 2, msFound: 30, msdFound: 41 } },
-    13: { hem: '3.8' }, 20: { ph: '5.2' },
+    4: { temperature: 8.2 },
+    6: { preservation: false },
+    9: { hem: '112' },
+    10: { spike: { spikeTrue: 40, spikeBackground: 2, msFound: 30, msdFound: 41 } },
+    13: { hem: '3.8' },
+    20: { ph: '5.2' },
   },
 };
 const nonDetects: Record<'north' | 'east', number[]> = { north: [3, 24], east: [15, 16] };
@@ -50,7 +68,8 @@ export async function seedLab(
   today = DateTime.now(),
 ): Promise<void> {
   const service = new LabCertificatesService(dataSource);
-  const parameterId = async (code: string) => (await manager.query('SELECT id FROM parameter WHERE site_id IS NULL AND code = $1', [code]))[0].id as string;
+  const parameterId = async (code: string) =>
+    (await manager.query('SELECT id FROM parameter WHERE site_id IS NULL AND code = $1', [code]))[0].id as string;
   const hem = await parameterId('oil-grease-hem');
   const ph = await parameterId('ph');
 
@@ -67,7 +86,10 @@ export async function seedLab(
         if (site.key === missedEvent.site && event === missedEvent.event) continue;
         const twist = twists[site.key][event] ?? {};
         const reportNumber = `BAS-${collected.toFormat('yyMMdd')}-${site.key === 'north' ? 'T' : 'O'}${String(event).padStart(2, '0')}`;
-        const exists = await manager.query('SELECT 1 FROM lab_certificate WHERE lab_name = $1 AND report_number = $2', [demoLab.name, reportNumber]);
+        const exists = await manager.query('SELECT 1 FROM lab_certificate WHERE lab_name = $1 AND report_number = $2', [
+          demoLab.name,
+          reportNumber,
+        ]);
         if (exists.length > 0) continue;
 
         const nonDetect = nonDetects[site.key].includes(event);
@@ -84,10 +106,17 @@ export async function seedLab(
           receivedOn: collected.plus({ days: 1 }).toISODate()!,
           qcBatches: [
             {
-              code: qcCode, fraction: 'HEM', oprRecoveryPct: twist.opr ?? 96, methodBlank: 1.1,
-              msRecoveryPct: twist.spike ? null : 92, msdRecoveryPct: twist.spike ? null : 95, rpdPct: twist.spike ? null : 3.2,
-              spikeTrue: twist.spike?.spikeTrue ?? null, spikeBackground: twist.spike?.spikeBackground ?? null,
-              msFound: twist.spike?.msFound ?? null, msdFound: twist.spike?.msdFound ?? null,
+              code: qcCode,
+              fraction: 'HEM',
+              oprRecoveryPct: twist.opr ?? 96,
+              methodBlank: 1.1,
+              msRecoveryPct: twist.spike ? null : 92,
+              msdRecoveryPct: twist.spike ? null : 95,
+              rpdPct: twist.spike ? null : 3.2,
+              spikeTrue: twist.spike?.spikeTrue ?? null,
+              spikeBackground: twist.spike?.spikeBackground ?? null,
+              msFound: twist.spike?.msFound ?? null,
+              msdFound: twist.spike?.msdFound ?? null,
             },
           ],
           samples: [
@@ -101,24 +130,56 @@ export async function seedLab(
               chainOfCustodyNumber: `COC-${reportNumber}`,
               results: [
                 {
-                  parameterId: hem, method: '1664B', qualifier: nonDetect ? '<' : null, value: nonDetect ? '5.0' : hemValue,
-                  mdl: 1.4, ml: 5.0, unit: 'mg/L', analysedAt: local(analysedAt), qcBatchCode: qcCode,
+                  parameterId: hem,
+                  method: '1664B',
+                  qualifier: nonDetect ? '<' : null,
+                  value: nonDetect ? '5.0' : hemValue,
+                  mdl: 1.4,
+                  ml: 5.0,
+                  unit: 'mg/L',
+                  analysedAt: local(analysedAt),
+                  qcBatchCode: qcCode,
                 },
                 {
-                  parameterId: ph, method: 'SM 4500-H+ B', qualifier: null, value: phValue, mdl: null, ml: null, unit: 'SU',
-                  analysedAt: local(collected.plus({ minutes: 10 })), qcBatchCode: null,
+                  parameterId: ph,
+                  method: 'SM 4500-H+ B',
+                  qualifier: null,
+                  value: phValue,
+                  mdl: null,
+                  ml: null,
+                  unit: 'SU',
+                  analysedAt: local(collected.plus({ minutes: 10 })),
+                  qcBatchCode: null,
                 },
               ],
             },
           ],
         };
         const pdf = await demoCertificatePdf({
-          labName: demoLab.name, accreditation: demoLab.accreditation, reportNumber, receivedOn: request.receivedOn, siteName: site.name,
+          labName: demoLab.name,
+          accreditation: demoLab.accreditation,
+          reportNumber,
+          receivedOn: request.receivedOn,
+          siteName: site.name,
           rows: [
-            { point: outfall.code, collected: local(collected).replace('T', ' '), parameter: 'Oil and grease (HEM)', method: 'EPA 1664B',
-              result: nonDetect ? '<5.0' : hemValue, unit: 'mg/L', analysed: local(analysedAt).replace('T', ' ') },
-            { point: outfall.code, collected: local(collected).replace('T', ' '), parameter: 'pH', method: 'SM 4500-H+ B', result: phValue,
-              unit: 'SU', analysed: local(collected.plus({ minutes: 10 })).replace('T', ' ') },
+            {
+              point: outfall.code,
+              collected: local(collected).replace('T', ' '),
+              parameter: 'Oil and grease (HEM)',
+              method: 'EPA 1664B',
+              result: nonDetect ? '<5.0' : hemValue,
+              unit: 'mg/L',
+              analysed: local(analysedAt).replace('T', ' '),
+            },
+            {
+              point: outfall.code,
+              collected: local(collected).replace('T', ' '),
+              parameter: 'pH',
+              method: 'SM 4500-H+ B',
+              result: phValue,
+              unit: 'SU',
+              analysed: local(collected.plus({ minutes: 10 })).replace('T', ' '),
+            },
           ],
         });
         const id = await service.insertCertificate(manager, coordinator, request, {
@@ -127,7 +188,8 @@ export async function seedLab(
         });
         // Entered the morning it came in: that is when the coordinator became aware of its results.
         await manager.query('UPDATE lab_certificate SET created_at = $2 WHERE id = $1', [
-          id, collected.plus({ days: 1 }).set({ hour: 10, minute: 0 }).toJSDate(),
+          id,
+          collected.plus({ days: 1 }).set({ hour: 10, minute: 0 }).toJSDate(),
         ]);
       }
     }

@@ -10,19 +10,72 @@ import { usedOilFlags } from '../../domain/used-oil.js';
  */
 const equipmentBySite = {
   north: [
-    { name: 'Belt skimmer, coolant sump A', kind: 'belt-skimmer', serves: 'Central coolant sump A (CNC line 1)', rated: 3, unit: 'gal/h', medium: 'Stainless steel belt', interval: 14, base: 1.6 },
-    { name: 'Drum skimmer, parts washer', kind: 'drum-skimmer', serves: 'Aqueous parts washer tank', rated: 8, unit: 'gal/h', medium: 'Oleophilic drum', interval: 30, base: 1.1 },
-    { name: 'Coalescing separator OWS-1', kind: 'oil-water-separator', serves: 'Floor drains to OF-001', rated: 40, unit: 'L/h', medium: null, interval: 30, base: 2.8 },
+    {
+      name: 'Belt skimmer, coolant sump A',
+      kind: 'belt-skimmer',
+      serves: 'Central coolant sump A (CNC line 1)',
+      rated: 3,
+      unit: 'gal/h',
+      medium: 'Stainless steel belt',
+      interval: 14,
+      base: 1.6,
+    },
+    {
+      name: 'Drum skimmer, parts washer',
+      kind: 'drum-skimmer',
+      serves: 'Aqueous parts washer tank',
+      rated: 8,
+      unit: 'gal/h',
+      medium: 'Oleophilic drum',
+      interval: 30,
+      base: 1.1,
+    },
+    {
+      name: 'Coalescing separator OWS-1',
+      kind: 'oil-water-separator',
+      serves: 'Floor drains to OF-001',
+      rated: 40,
+      unit: 'L/h',
+      medium: null,
+      interval: 30,
+      base: 2.8,
+    },
   ],
   east: [
-    { name: 'Disc skimmer, rinse tank', kind: 'disc-skimmer', serves: 'Alkaline cleaner rinse tank', rated: 10, unit: 'L/h', medium: 'Polymer discs', interval: 14, base: 3.9 },
-    { name: 'Tube skimmer, wash-line sump', kind: 'tube-skimmer', serves: 'Wash-line sump (IS-201)', rated: 1, unit: 'gal/h', medium: 'Floating polymer tube', interval: 14, base: 2.4 },
+    {
+      name: 'Disc skimmer, rinse tank',
+      kind: 'disc-skimmer',
+      serves: 'Alkaline cleaner rinse tank',
+      rated: 10,
+      unit: 'L/h',
+      medium: 'Polymer discs',
+      interval: 14,
+      base: 3.9,
+    },
+    {
+      name: 'Tube skimmer, wash-line sump',
+      kind: 'tube-skimmer',
+      serves: 'Wash-line sump (IS-201)',
+      rated: 1,
+      unit: 'gal/h',
+      medium: 'Floating polymer tube',
+      interval: 14,
+      base: 2.4,
+    },
   ],
 } as const;
 
-const carriers = { transporter: { name: 'Kestrel Fluid Haulers', epaId: 'ILR000417233' }, receiver: { name: 'Marrowby Oil Recovery', epaId: 'ILD000982114' } };
+const carriers = {
+  transporter: { name: 'Kestrel Fluid Haulers', epaId: 'ILR000417233' },
+  receiver: { name: 'Marrowby Oil Recovery', epaId: 'ILD000982114' },
+};
 
-export async function seedOil(manager: EntityManager, sites: Array<{ key: 'north' | 'east'; id: string; timeZone: string }>, operatorId: string, today = DateTime.now()): Promise<void> {
+export async function seedOil(
+  manager: EntityManager,
+  sites: Array<{ key: 'north' | 'east'; id: string; timeZone: string }>,
+  operatorId: string,
+  today = DateTime.now(),
+): Promise<void> {
   const existing = await manager.query('SELECT 1 FROM equipment LIMIT 1');
   if (existing.length > 0) return;
   for (const [salt, site] of sites.entries()) {
@@ -52,31 +105,58 @@ export async function seedOil(manager: EntityManager, sites: Array<{ key: 'north
         `INSERT INTO oil_log_entry (equipment_id, site_id, collected_on, volume_litres, entered_volume, entered_unit, hours_run, water_temperature_c, observations, entered_by)
          SELECT a, b, c, d, e, f, g, h, string_to_array(i, ','), j FROM unnest($1::uuid[], $2::uuid[], $3::date[], $4::numeric[], $5::numeric[], $6::text[], $7::numeric[], $8::numeric[], $9::text[], $10::uuid[])
            AS t(a, b, c, d, e, f, g, h, i, j)`,
-        [0, 1, 2, 3, 4, 5, 6, 7, 8, 9].map((column) => entries.map((entry) => (column === 8 ? (entry[8] as string[]).join(',') : entry[column]))),
+        [0, 1, 2, 3, 4, 5, 6, 7, 8, 9].map((column) =>
+          entries.map((entry) => (column === 8 ? (entry[8] as string[]).join(',') : entry[column])),
+        ),
       );
 
       let check = 0;
       // Checks keep pace with each interval; the north belt skimmer's latest one was skipped, so it shows overdue.
-      const lastCheckBefore = site.key === 'north' && index === 0 ? localToday.minus({ days: spec.interval + 3 }) : localToday.minus({ days: 1 });
+      const lastCheckBefore =
+        site.key === 'north' && index === 0 ? localToday.minus({ days: spec.interval + 3 }) : localToday.minus({ days: 1 });
       for (let day = start.plus({ days: 3 }); day <= lastCheckBefore; day = day.plus({ days: spec.interval })) {
         check += 1;
         const failing = (check + index + salt) % 11 === 0 ? (check % 2 ? 'wipers-even' : 'trough-clear') : null;
         const items = upkeepItems.map((item) => ({
           key: item.key,
-          outcome: item.key === failing ? 'fail' : spec.kind === 'oil-water-separator' && ['wipers-even', 'medium-tracking', 'medium-immersed'].includes(item.key) ? 'not-applicable' : 'pass',
-          note: item.key === failing ? (failing === 'wipers-even' ? 'Left wiper worn, streaks of oil past it' : 'Chips and swarf packed in the trough') : '',
+          outcome:
+            item.key === failing
+              ? 'fail'
+              : spec.kind === 'oil-water-separator' && ['wipers-even', 'medium-tracking', 'medium-immersed'].includes(item.key)
+                ? 'not-applicable'
+                : 'pass',
+          note:
+            item.key === failing
+              ? failing === 'wipers-even'
+                ? 'Left wiper worn, streaks of oil past it'
+                : 'Chips and swarf packed in the trough'
+              : '',
           photoFileId: null,
         }));
         const [row] = await manager.query(
           `INSERT INTO upkeep_check (equipment_id, site_id, checked_on, items, immersion_value, immersion_unit, failed_count, checked_by)
            VALUES ($1, $2, $3, $4, $5, 'in', $6, $7) RETURNING id`,
-          [equipment.id, site.id, day.toISODate(), JSON.stringify(items), spec.kind === 'oil-water-separator' ? null : 4, failing ? 1 : 0, operatorId],
+          [
+            equipment.id,
+            site.id,
+            day.toISODate(),
+            JSON.stringify(items),
+            spec.kind === 'oil-water-separator' ? null : 4,
+            failing ? 1 : 0,
+            operatorId,
+          ],
         );
         if (failing) {
           await manager.query(
             `INSERT INTO follow_up (site_id, kind, source_entity, source_id, title, due_at, status, closed_at, closing_note)
              VALUES ($1, 'upkeep-failed', 'upkeep-check', $2, $3, $4, 'done', $5, 'Fixed on the floor')`,
-            [site.id, row.id, `Fix ${spec.name}: ${failing === 'wipers-even' ? 'wipers' : 'trough'}`, day.plus({ days: 7 }).toJSDate(), day.plus({ days: 2 }).toJSDate()],
+            [
+              site.id,
+              row.id,
+              `Fix ${spec.name}: ${failing === 'wipers-even' ? 'wipers' : 'trough'}`,
+              day.plus({ days: 7 }).toJSDate(),
+              day.plus({ days: 2 }).toJSDate(),
+            ],
           );
         }
       }
@@ -85,9 +165,16 @@ export async function seedOil(manager: EntityManager, sites: Array<{ key: 'north
     // Shipments: roughly every three and a half weeks, taking what was collected since the last one.
     let shipmentNumber = 0;
     let shippedLitres = 0;
-    for (let day = start.plus({ days: 20 }); day <= localToday.minus({ days: 3 }); day = day.plus({ days: 24 + (shipmentNumber % 3) * 3 })) {
+    for (
+      let day = start.plus({ days: 20 });
+      day <= localToday.minus({ days: 3 });
+      day = day.plus({ days: 24 + (shipmentNumber % 3) * 3 })
+    ) {
       shipmentNumber += 1;
-      const collectedBy = await manager.query('SELECT coalesce(sum(volume_litres), 0) AS litres FROM oil_log_entry WHERE site_id = $1 AND collected_on <= $2', [site.id, day.toISODate()]);
+      const collectedBy = await manager.query(
+        'SELECT coalesce(sum(volume_litres), 0) AS litres FROM oil_log_entry WHERE site_id = $1 AND collected_on <= $2',
+        [site.id, day.toISODate()],
+      );
       const litres = Math.max(0, Math.round(Number(collectedBy[0].litres) - shippedLitres));
       if (litres < 200) continue;
       shippedLitres += litres;
@@ -99,7 +186,15 @@ export async function seedOil(manager: EntityManager, sites: Array<{ key: 'north
       const comesBack = day.plus({ days: 9 + (shipmentNumber % 12) });
       const returned = neverReturned || comesBack >= localToday ? null : comesBack.toISODate();
       const halogens = site.key === 'east' && shipmentNumber === 7 ? 1340 : 180 + ((shipmentNumber * 37) % 300);
-      const analysis = { totalHalogensPpm: halogens, burnedAsFuel: true, arsenicPpm: 1.2, cadmiumPpm: 0.4, chromiumPpm: 2.1, leadPpm: 18, flashPointF: 210 };
+      const analysis = {
+        totalHalogensPpm: halogens,
+        burnedAsFuel: true,
+        arsenicPpm: 1.2,
+        cadmiumPpm: 0.4,
+        chromiumPpm: 2.1,
+        leadPpm: 18,
+        flashPointF: 210,
+      };
       const document = `${String(100000000 + salt * 5000000 + shipmentNumber * 7919).slice(0, 9)}JJK`;
       await manager.query(
         `INSERT INTO shipment (site_id, shipped_on, document_kind, document_number, transporter_name, transporter_epa_id, receiver_name, receiver_epa_id,
@@ -107,13 +202,32 @@ export async function seedOil(manager: EntityManager, sites: Array<{ key: 'north
            flash_point_f, signed_copy_received_on, flags, created_by)
          VALUES ($1, $2, 'hazardous-waste-manifest', $3, $4, $5, $6, $7, 'Used oil from skimmers and separators, in 55-gal drums', $8, 'gal', $9,
            $10, true, $11, $12, $13, $14, $15, $16, $17, $18)`,
-        [site.id, day.toISODate(), document, carriers.transporter.name, carriers.transporter.epaId, carriers.receiver.name, carriers.receiver.epaId,
-          gallons, gallons * 3.785411784, halogens, analysis.arsenicPpm, analysis.cadmiumPpm, analysis.chromiumPpm, analysis.leadPpm, analysis.flashPointF,
-          returned, JSON.stringify(usedOilFlags(analysis)), operatorId],
+        [
+          site.id,
+          day.toISODate(),
+          document,
+          carriers.transporter.name,
+          carriers.transporter.epaId,
+          carriers.receiver.name,
+          carriers.receiver.epaId,
+          gallons,
+          gallons * 3.785411784,
+          halogens,
+          analysis.arsenicPpm,
+          analysis.cadmiumPpm,
+          analysis.chromiumPpm,
+          analysis.leadPpm,
+          analysis.flashPointF,
+          returned,
+          JSON.stringify(usedOilFlags(analysis)),
+          operatorId,
+        ],
       );
     }
     await manager.query('UPDATE site SET oil_opening_balance_litres = $2, oil_opening_balance_on = $3 WHERE id = $1', [
-      site.id, 150, start.minus({ days: 1 }).toISODate(),
+      site.id,
+      150,
+      start.minus({ days: 1 }).toISODate(),
     ]);
     void collectedLitres;
   }

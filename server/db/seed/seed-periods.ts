@@ -31,7 +31,9 @@ export async function seedFlowsAndPeriods(
         `UPDATE reporting_period SET submitted_on = due_on - 3 WHERE permit_id = $1 AND due_on < $2 AND submitted_on IS NULL`,
         [permit.id, today.setZone(site.timeZone).toISODate()],
       );
-      const periods = await manager.query(`SELECT id FROM reporting_period WHERE permit_id = $1 AND status = 'open' ORDER BY starts_on`, [permit.id]);
+      const periods = await manager.query(`SELECT id FROM reporting_period WHERE permit_id = $1 AND status = 'open' ORDER BY starts_on`, [
+        permit.id,
+      ]);
       for (const period of periods) await compileWithin(manager, coordinator, period.id);
     }
   }

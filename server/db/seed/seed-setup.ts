@@ -21,7 +21,8 @@ const permits = {
 export async function seedSetup(manager: EntityManager, siteIds: Record<'north' | 'east', string>): Promise<void> {
   // The demo permits took effect when the demo's 18 months of records begin.
   const effectiveFrom = DateTime.now().setZone('America/Chicago').startOf('month').minus({ months: 17 }).toISODate();
-  const parameter = async (code: string) => (await manager.query('SELECT id FROM parameter WHERE site_id IS NULL AND code = $1', [code]))[0].id as string;
+  const parameter = async (code: string) =>
+    (await manager.query('SELECT id FROM parameter WHERE site_id IS NULL AND code = $1', [code]))[0].id as string;
   const hem = await parameter('oil-grease-hem');
   const ph = await parameter('ph');
   const flow = await parameter('flow');

@@ -65,7 +65,13 @@ export function dailyDischarges(
     }
     const value = sum / (end - start);
     const mgd = flowOn(day);
-    days.push({ day, value, allNonDetect, measurements: ordered.slice(start, end), massLoading: mgd === undefined ? null : massLoading(mgd, value, factor) });
+    days.push({
+      day,
+      value,
+      allNonDetect,
+      measurements: ordered.slice(start, end),
+      massLoading: mgd === undefined ? null : massLoading(mgd, value, factor),
+    });
     start = end;
   }
   return days;

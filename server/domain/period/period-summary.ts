@@ -12,7 +12,7 @@ export type { Exceedance, LimitRow, PeriodSummaryCore };
 
 /** How far past the limit, in % of it, to one decimal: above a maximum, or below a minimum. */
 const percentPast = (value: number, limit: number, isMinimum: boolean) =>
-  limit === 0 ? 0 : Math.round((((isMinimum ? limit - value : value - limit) / limit) * 1000)) / 10;
+  limit === 0 ? 0 : Math.round(((isMinimum ? limit - value : value - limit) / limit) * 1000) / 10;
 const evidence = (measurements: Measurement[]) => ({
   resultIds: measurements.map((m) => m.resultId),
   certificateIds: [...new Set(measurements.map((m) => m.certificateId))],
@@ -55,8 +55,12 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
   const rule = precisionRule(limit);
   const shown = (value: Figure | null) => shownFigure(value, rule);
   const exceedance = (date: string, value: number, measurements: Measurement[]): Exceedance => ({
-    date, value, shownValue: shown(value)!, limit: limit.value,
-    percentOver: percentPast(value, limit.value, limit.statistic === 'instantaneous-minimum'), ...evidence(measurements),
+    date,
+    value,
+    shownValue: shown(value)!,
+    limit: limit.value,
+    percentOver: percentPast(value, limit.value, limit.statistic === 'instantaneous-minimum'),
+    ...evidence(measurements),
   });
 
   const discharges = context.dischargesOf(limit, inPeriod);
@@ -75,7 +79,9 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
   switch (limit.statistic) {
     case 'daily-maximum': {
       computedValue = dailyMaximum(days);
-      exceedances = days.filter((day) => !day.allNonDetect && day.value > limit.value).map((day) => exceedance(day.day, day.value, day.source.measurements));
+      exceedances = days
+        .filter((day) => !day.allNonDetect && day.value > limit.value)
+        .map((day) => exceedance(day.day, day.value, day.source.measurements));
       if (permit.dailyMaxAppliesToEachGrab) {
         // Some authorities apply the daily maximum to every single grab as well (a permit setting).
         const daysOver = new Set(exceedances.map((e) => e.date));
@@ -88,12 +94,22 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
       break;
     }
     case 'monthly-average': {
-      monthlyValues = monthlyAverages(days).map((month) => ({ ...month, shownValue: shown(month.value)!, exceeded: exceeds(month.value, limit.value) }));
+      monthlyValues = monthlyAverages(days).map((month) => ({
+        ...month,
+        shownValue: shown(month.value)!,
+        exceeded: exceeds(month.value, limit.value),
+      }));
       const numeric = monthlyValues.map((month) => month.value).filter((value): value is number => typeof value === 'number');
       computedValue = monthlyValues.length === 0 ? null : numeric.length === 0 ? '<ML' : Math.max(...numeric);
       exceedances = monthlyValues
         .filter((month) => month.exceeded)
-        .map((month) => exceedance(month.month, month.value as number, days.filter((day) => day.day.startsWith(month.month)).flatMap((day) => day.source.measurements)));
+        .map((month) =>
+          exceedance(
+            month.month,
+            month.value as number,
+            days.filter((day) => day.day.startsWith(month.month)).flatMap((day) => day.source.measurements),
+          ),
+        );
       break;
     }
     case 'instantaneous-maximum':
@@ -103,14 +119,19 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
         const value = m.qualifier === null ? scale(m.value, m.day) : null;
         return value === null ? [] : [{ m, value }];
       });
-      computedValue = inPeriod.length === 0 ? null : detected.length === 0 ? '<ML' : (isMax ? Math.max : Math.min)(...detected.map((d) => d.value));
-      exceedances = detected.filter(({ value }) => (isMax ? value > limit.value : value < limit.value)).map(({ m, value }) => exceedance(m.day, value, [m]));
+      computedValue =
+        inPeriod.length === 0 ? null : detected.length === 0 ? '<ML' : (isMax ? Math.max : Math.min)(...detected.map((d) => d.value));
+      exceedances = detected
+        .filter(({ value }) => (isMax ? value > limit.value : value < limit.value))
+        .map(({ m, value }) => exceedance(m.day, value, [m]));
       break;
     }
   }
 
   const exceeded =
-    limit.statistic === 'instantaneous-minimum' ? fallsBelow(computedValue, limit.value) : exceedances.length > 0 || exceeds(computedValue, limit.value);
+    limit.statistic === 'instantaneous-minimum'
+      ? fallsBelow(computedValue, limit.value)
+      : exceedances.length > 0 || exceeds(computedValue, limit.value);
   return {
     limitId: limit.id,
     dischargePointId: limit.dischargePointId,
@@ -157,7 +178,10 @@ function contextOf(input: PeriodInput): Context {
     if (!days) {
       const flowOnDay = (day: string) => flowOn(limit.dischargePointId, day);
       const methodMdl = limit.method1664 ? METHOD_DETECTION_LIMIT : null;
-      discharges.set(key, (days = dailyDischarges(measurements, input.permit.nonDetectPolicy, flowOnDay, input.permit.massLoadingFactor, methodMdl)));
+      discharges.set(
+        key,
+        (days = dailyDischarges(measurements, input.permit.nonDetectPolicy, flowOnDay, input.permit.massLoadingFactor, methodMdl)),
+      );
     }
     return days;
   };
@@ -166,7 +190,14 @@ function contextOf(input: PeriodInput): Context {
   const monitoring = (limit: LimitInput, discharges: DailyDischarge[]) => {
     const key = `${limit.dischargePointId}|${limit.parameterId}|${limit.frequencyCount}|${limit.frequencyPer}`;
     let check = checks.get(key);
-    if (!check) checks.set(key, (check = checkMonitoring(limit, discharges.map((d) => ({ day: d.day, samples: d.measurements.length })))));
+    if (!check)
+      checks.set(
+        key,
+        (check = checkMonitoring(
+          limit,
+          discharges.map((d) => ({ day: d.day, samples: d.measurements.length })),
+        )),
+      );
     return check;
   };
   return { input, inPeriod, flowOn, monitoring, scaleFor, dischargesOf };
@@ -187,9 +218,15 @@ function significantNoncompliance(input: PeriodInput, context: Context): PeriodS
     if (list) list.push(m);
     else byParameter.set(m.parameterId, [m]);
   }
-  const parameters = new Map(input.limits.filter((l) => l.isPollutant).map((l) => [l.parameterId, { id: l.parameterId, name: l.parameterName, reviewFactor: l.sncReviewFactor }]));
+  const parameters = new Map(
+    input.limits
+      .filter((l) => l.isPollutant)
+      .map((l) => [l.parameterId, { id: l.parameterId, name: l.parameterName, reviewFactor: l.sncReviewFactor }]),
+  );
   return sncWindows(input.period, input.permit.sncWindow).flatMap((window) =>
-    [...parameters.values()].map((parameter) => sncVerdict(parameter, window, byParameter.get(parameter.id) ?? [], limitsByPoint, context.scaleFor)),
+    [...parameters.values()].map((parameter) =>
+      sncVerdict(parameter, window, byParameter.get(parameter.id) ?? [], limitsByPoint, context.scaleFor),
+    ),
   );
 }
 

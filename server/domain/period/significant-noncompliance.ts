@@ -17,7 +17,10 @@ export const TECHNICAL_REVIEW_PERCENT = 33;
 export type { SncVerdict };
 
 /** The six-month windows that touch the period: calendar halves, or the six months ending with it. */
-export function sncWindows(period: { start: string; end: string }, kind: 'calendar-halves' | 'rolling'): Array<{ start: string; end: string }> {
+export function sncWindows(
+  period: { start: string; end: string },
+  kind: 'calendar-halves' | 'rolling',
+): Array<{ start: string; end: string }> {
   const end = DateTime.fromISO(period.end, { zone: 'UTC' });
   // Rolling: the six calendar months ending with the period's last month.
   if (kind === 'rolling') return [{ start: end.startOf('month').minus({ months: 5 }).toISODate()!, end: period.end }];

@@ -1,5 +1,6 @@
 import { DateTime } from 'luxon';
-import type { DataSource, EntityManager } from 'typeorm';
+import { DataSource, type EntityManager } from 'typeorm';
+import { selectRow, type Row } from '../../db/rows.js';
 import type { EquipmentView } from '../../contracts/oil.js';
 import { likelyUndersized, ratingLitresPerHour } from '../../domain/oil-collection.js';
 
@@ -46,4 +47,17 @@ export async function findEquipment(db: Db, where: { siteIds: string[]; id?: str
       collectedLitresLast30Days: Number(row.last_30),
     };
   });
+}
+
+/** How an equipment row is written and shown by the traced writes. */
+export const equipmentTarget = {
+  table: 'equipment',
+  entity: 'equipment',
+  view: (row: Row) => ({ ...row, ratedCapacity: Number(row.ratedCapacity), specificGravity: Number(row.specificGravity) }),
+  siteIdOf: (row: Row) => row.siteId as string,
+};
+
+export async function findEquipmentSiteId(db: Db, id: string): Promise<string | undefined> {
+  const row = await selectRow(db instanceof DataSource ? db.manager : db, 'equipment', id);
+  return row?.siteId as string | undefined;
 }

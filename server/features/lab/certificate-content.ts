@@ -31,7 +31,10 @@ export async function writeCertificateContent(
   );
   const parameters = new Set<string>(
     (
-      await manager.query('SELECT id FROM parameter WHERE (site_id IS NULL OR site_id = $1) AND id = ANY($2::uuid[])', [site.id, parameterIds])
+      await manager.query('SELECT id FROM parameter WHERE (site_id IS NULL OR site_id = $1) AND id = ANY($2::uuid[])', [
+        site.id,
+        parameterIds,
+      ])
     ).map((row: { id: string }) => row.id),
   );
   const batchCodes = new Set(content.qcBatches.map((batch) => batch.code));
@@ -58,8 +61,20 @@ export async function writeCertificateContent(
       `INSERT INTO qc_batch (certificate_id, code, fraction, opr_recovery_pct, ms_recovery_pct, msd_recovery_pct, rpd_pct,
          method_blank, spike_true, spike_background, ms_found, msd_found)
        VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12) RETURNING id`,
-      [certificateId, batch.code, batch.fraction, batch.oprRecoveryPct, batch.msRecoveryPct, batch.msdRecoveryPct, batch.rpdPct,
-        batch.methodBlank, batch.spikeTrue, batch.spikeBackground, batch.msFound, batch.msdFound],
+      [
+        certificateId,
+        batch.code,
+        batch.fraction,
+        batch.oprRecoveryPct,
+        batch.msRecoveryPct,
+        batch.msdRecoveryPct,
+        batch.rpdPct,
+        batch.methodBlank,
+        batch.spikeTrue,
+        batch.spikeBackground,
+        batch.msFound,
+        batch.msdFound,
+      ],
     );
     batchIds.set(batch.code, row.id);
   }
@@ -68,8 +83,17 @@ export async function writeCertificateContent(
       `INSERT INTO lab_sample (certificate_id, discharge_point_id, collected_at, collected_on, collected_by, sample_type,
          preservation_confirmed, temperature_on_receipt_c, chain_of_custody_number)
        VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9) RETURNING id`,
-      [certificateId, sample.dischargePointId, localToInstant(sample.collectedAt, site.timeZone), sample.collectedAt.slice(0, 10),
-        sample.collectedBy, sample.sampleType, sample.preservationConfirmed, sample.temperatureOnReceiptC, sample.chainOfCustodyNumber],
+      [
+        certificateId,
+        sample.dischargePointId,
+        localToInstant(sample.collectedAt, site.timeZone),
+        sample.collectedAt.slice(0, 10),
+        sample.collectedBy,
+        sample.sampleType,
+        sample.preservationConfirmed,
+        sample.temperatureOnReceiptC,
+        sample.chainOfCustodyNumber,
+      ],
     );
     // A sample's results in one statement: imports write thousands of them.
     const results = sample.results;

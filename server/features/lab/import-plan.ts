@@ -3,7 +3,7 @@ import type { CreateLabCertificateRequest } from '../../contracts/lab.js';
 import type { ImportColumn, ImportRowError } from '../../contracts/lab-import.js';
 import { decimalText, isoDate } from '../../contracts/fields.js';
 import { unitNames } from '../../contracts/unit-names.js';
-import type { ImportRow } from '../imports/spreadsheet-rows.js';
+import type { ImportRow } from '../../kernel/spreadsheets/spreadsheet-rows.js';
 
 const blankToNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : value.trim());
 const localTime = z
@@ -48,7 +48,13 @@ export interface ImportPlan {
 }
 
 const certificateFields: ImportColumn[] = ['lab_accreditation_number', 'received_on'];
-const sampleFields: ImportColumn[] = ['collected_by', 'sample_type', 'preservation_confirmed', 'temperature_on_receipt', 'chain_of_custody_number'];
+const sampleFields: ImportColumn[] = [
+  'collected_by',
+  'sample_type',
+  'preservation_confirmed',
+  'temperature_on_receipt',
+  'chain_of_custody_number',
+];
 
 /**
  * Checks every row and groups them: one certificate per lab and report number, one sample per
@@ -57,7 +63,14 @@ const sampleFields: ImportColumn[] = ['collected_by', 'sample_type', 'preservati
  */
 export async function planImport(rows: AsyncIterable<ImportRow>, lookups: ImportLookups, maxErrors = 500): Promise<ImportPlan> {
   const errors: ImportRowError[] = [];
-  const certificates = new Map<string, { request: CreateLabCertificateRequest; firstRow: Record<string, unknown>; samples: Map<string, { index: number; first: Record<string, unknown> }> }>();
+  const certificates = new Map<
+    string,
+    {
+      request: CreateLabCertificateRequest;
+      firstRow: Record<string, unknown>;
+      samples: Map<string, { index: number; first: Record<string, unknown> }>;
+    }
+  >();
   let count = 0;
   const fail = (row: number, column: ImportColumn | null, message: string) => {
     if (errors.length < maxErrors) errors.push({ row, column, message });
@@ -86,8 +99,13 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
     if (!certificate) {
       certificate = {
         request: {
-          siteId: lookups.siteId, labName: data.lab_name, labAccreditationNumber: data.lab_accreditation_number,
-          reportNumber: data.report_number, receivedOn: data.received_on, qcBatches: [], samples: [],
+          siteId: lookups.siteId,
+          labName: data.lab_name,
+          labAccreditationNumber: data.lab_accreditation_number,
+          reportNumber: data.report_number,
+          receivedOn: data.received_on,
+          qcBatches: [],
+          samples: [],
         },
         firstRow: data,
         samples: new Map(),
@@ -95,7 +113,8 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
       certificates.set(certificateKey, certificate);
     }
     for (const field of certificateFields) {
-      if (certificate.firstRow[field] !== data[field as keyof typeof data]) fail(row, field, 'Differs from an earlier row of the same certificate');
+      if (certificate.firstRow[field] !== data[field as keyof typeof data])
+        fail(row, field, 'Differs from an earlier row of the same certificate');
     }
     const sampleKey = `${pointId}\u0000${data.collected_at}`;
     let sample = certificate.samples.get(sampleKey);
@@ -103,17 +122,29 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
       sample = { index: certificate.request.samples.length, first: data };
       certificate.samples.set(sampleKey, sample);
       certificate.request.samples.push({
-        dischargePointId: pointId, collectedAt: data.collected_at, collectedBy: data.collected_by, sampleType: data.sample_type,
-        preservationConfirmed: data.preservation_confirmed, temperatureOnReceiptC: data.temperature_on_receipt,
-        chainOfCustodyNumber: data.chain_of_custody_number, results: [],
+        dischargePointId: pointId,
+        collectedAt: data.collected_at,
+        collectedBy: data.collected_by,
+        sampleType: data.sample_type,
+        preservationConfirmed: data.preservation_confirmed,
+        temperatureOnReceiptC: data.temperature_on_receipt,
+        chainOfCustodyNumber: data.chain_of_custody_number,
+        results: [],
       });
     }
     for (const field of sampleFields) {
       if (sample.first[field] !== data[field as keyof typeof data]) fail(row, field, 'Differs from an earlier row of the same sample');
     }
     certificate.request.samples[sample.index]!.results.push({
-      parameterId, method: data.method, qualifier: data.qualifier, value: data.value, mdl: data.mdl, ml: data.ml, unit: data.unit,
-      analysedAt: data.analysed_at, qcBatchCode: null,
+      parameterId,
+      method: data.method,
+      qualifier: data.qualifier,
+      value: data.value,
+      mdl: data.mdl,
+      ml: data.ml,
+      unit: data.unit,
+      analysedAt: data.analysed_at,
+      qcBatchCode: null,
     });
   }
   if (count === 0) errors.push({ row: 1, column: null, message: 'The file has no rows below its header' });

@@ -10,8 +10,25 @@ export async function importTemplate(format: 'xlsx' | 'csv', example: { pointCod
   const now = new Date();
   const day = (offset: number) => new Date(now.getTime() - offset * 86_400_000).toISOString().slice(0, 10);
   sheet.addRow([
-    'Example Laboratory', 'ACC-0000', `EXAMPLE-${now.getTime()}`, day(5), example.pointCode, `${day(7)} 09:30`, 'Sampler name', 'grab',
-    'yes', '3.8', 'COC-0001', 'oil-grease-hem', '1664B', '', '18.2', 'mg/L', '1.4', '5.0', `${day(6)} 10:00`,
+    'Example Laboratory',
+    'ACC-0000',
+    `EXAMPLE-${now.getTime()}`,
+    day(5),
+    example.pointCode,
+    `${day(7)} 09:30`,
+    'Sampler name',
+    'grab',
+    'yes',
+    '3.8',
+    'COC-0001',
+    'oil-grease-hem',
+    '1664B',
+    '',
+    '18.2',
+    'mg/L',
+    '1.4',
+    '5.0',
+    `${day(6)} 10:00`,
   ]);
   sheet.getRow(1).font = { bold: true };
   sheet.columns.forEach((column) => (column.width = 24));

@@ -46,7 +46,12 @@ export async function computeCertificateFlags(
       rpdPct: n(batch.rpd_pct),
       methodBlank: n(batch.method_blank),
       spike: hasSpike
-        ? { spiked: Number(batch.spike_true), background: Number(batch.spike_background ?? 0), msFound: Number(batch.ms_found), msdFound: Number(batch.msd_found) }
+        ? {
+            spiked: Number(batch.spike_true),
+            background: Number(batch.spike_background ?? 0),
+            msFound: Number(batch.ms_found),
+            msdFound: Number(batch.msd_found),
+          }
         : null,
     });
     qcFlags.set(batch.id, flags);
@@ -145,8 +150,13 @@ export function limitsInForce(manager: EntityManager): LimitsInForce {
         )
         .then((rows: Array<Record<string, any>>) =>
           rows.map((row) => ({
-            parameterId: row.parameter_id, statistic: row.statistic, value: Number(row.value), unit: row.unit, sampleType: row.sample_type,
-            from: row.effective_from, to: row.effective_to,
+            parameterId: row.parameter_id,
+            statistic: row.statistic,
+            value: Number(row.value),
+            unit: row.unit,
+            sampleType: row.sample_type,
+            from: row.effective_from,
+            to: row.effective_to,
           })),
         );
       byPoint.set(pointId, limits);

@@ -11,10 +11,22 @@ const select = `SELECT o.*, e.name AS equipment_name, u.name AS entered_by_name
 
 function view(row: Record<string, any>): OilLogEntryView {
   return {
-    id: row.id, equipmentId: row.equipment_id, equipmentName: row.equipment_name, siteId: row.site_id, collectedOn: row.collected_on,
-    volumeLitres: Number(row.volume_litres), enteredVolume: Number(row.entered_volume), enteredUnit: row.entered_unit,
-    hoursRun: n(row.hours_run), waterTemperatureC: n(row.water_temperature_c), observations: row.observations, note: row.note,
-    flags: row.flags, enteredBy: row.entered_by, enteredByName: row.entered_by_name, createdAt: row.created_at.toISOString(),
+    id: row.id,
+    equipmentId: row.equipment_id,
+    equipmentName: row.equipment_name,
+    siteId: row.site_id,
+    collectedOn: row.collected_on,
+    volumeLitres: Number(row.volume_litres),
+    enteredVolume: Number(row.entered_volume),
+    enteredUnit: row.entered_unit,
+    hoursRun: n(row.hours_run),
+    waterTemperatureC: n(row.water_temperature_c),
+    observations: row.observations,
+    note: row.note,
+    flags: row.flags,
+    enteredBy: row.entered_by,
+    enteredByName: row.entered_by_name,
+    createdAt: row.created_at.toISOString(),
   };
 }
 
@@ -30,18 +42,28 @@ export async function pageOilLog(
   siteIds: string[],
   query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; equipmentId?: string; from?: string; to?: string },
 ): Promise<Page<OilLogEntryView>> {
-  return queryPage(db, {
-    select,
-    countFrom: 'FROM oil_log_entry o',
-    where: `o.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR o.equipment_id = $2)
+  return queryPage(
+    db,
+    {
+      select,
+      countFrom: 'FROM oil_log_entry o',
+      where: `o.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR o.equipment_id = $2)
       AND ($3::date IS NULL OR o.collected_on >= $3) AND ($4::date IS NULL OR o.collected_on <= $4)`,
-    order: `${sorts[query.sortBy ?? ''] ?? 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`,
-    params: [siteIds, query.equipmentId ?? null, query.from ?? null, query.to ?? null],
-  }, query, view);
+      order: `${sorts[query.sortBy ?? ''] ?? 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`,
+      params: [siteIds, query.equipmentId ?? null, query.from ?? null, query.to ?? null],
+    },
+    query,
+    view,
+  );
 }
 
 /** Litres collected per day, ISO week or month (the site's local dates). */
-export async function oilTotals(db: Db, siteId: string, by: 'day' | 'week' | 'month', filter: { equipmentId?: string; from?: string; to?: string }) {
+export async function oilTotals(
+  db: Db,
+  siteId: string,
+  by: 'day' | 'week' | 'month',
+  filter: { equipmentId?: string; from?: string; to?: string },
+) {
   const rows = await db.query(
     `SELECT to_char(date_trunc($2, collected_on::timestamp), 'YYYY-MM-DD') AS period, sum(volume_litres) AS litres, count(*)::int AS entries
        FROM oil_log_entry WHERE site_id = $1 AND ($3::uuid IS NULL OR equipment_id = $3)
@@ -49,5 +71,9 @@ export async function oilTotals(db: Db, siteId: string, by: 'day' | 'week' | 'mo
       GROUP BY 1 ORDER BY 1`,
     [siteId, by, filter.equipmentId ?? null, filter.from ?? null, filter.to ?? null],
   );
-  return rows.map((row: { period: string; litres: string; entries: number }) => ({ period: row.period, litres: Number(row.litres), entries: row.entries }));
+  return rows.map((row: { period: string; litres: string; entries: number }) => ({
+    period: row.period,
+    litres: Number(row.litres),
+    entries: row.entries,
+  }));
 }

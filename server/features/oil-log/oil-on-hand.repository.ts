@@ -10,7 +10,11 @@ export interface OilBalanceRecord extends OilBalanceInput {
  * shipped after its date, up to `asOf` (a day, inclusive) or up to now. Null when `asOf` is
  * before the opening balance, where the balance is not known.
  */
-export async function oilBalanceInput(db: DataSource | EntityManager, siteId: string, asOf: string | null = null): Promise<OilBalanceRecord | null> {
+export async function oilBalanceInput(
+  db: DataSource | EntityManager,
+  siteId: string,
+  asOf: string | null = null,
+): Promise<OilBalanceRecord | null> {
   const [row] = await db.query(
     `SELECT s.oil_opening_balance_litres AS opening, s.oil_opening_balance_on::text AS opening_on, s.oil_storage_capacity_gallons AS capacity,
             (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry o WHERE o.site_id = s.id
@@ -22,7 +26,28 @@ export async function oilBalanceInput(db: DataSource | EntityManager, siteId: st
   );
   if (!row || (asOf !== null && row.opening_on !== null && asOf < row.opening_on)) return null;
   return {
-    openingLitres: Number(row.opening), openingOn: row.opening_on, collectedLitres: Number(row.collected), shippedLitres: Number(row.shipped),
+    openingLitres: Number(row.opening),
+    openingOn: row.opening_on,
+    collectedLitres: Number(row.collected),
+    shippedLitres: Number(row.shipped),
     capacityGallons: row.capacity === null ? null : Number(row.capacity),
   };
+}
+
+export interface OpeningBalance {
+  litres: number;
+  on: string | null;
+}
+
+export async function findOpeningBalance(manager: EntityManager, siteId: string): Promise<OpeningBalance> {
+  const [row] = await manager.query('SELECT oil_opening_balance_litres, oil_opening_balance_on FROM site WHERE id = $1', [siteId]);
+  return { litres: Number(row.oil_opening_balance_litres), on: row.oil_opening_balance_on };
+}
+
+export async function saveOpeningBalance(manager: EntityManager, siteId: string, balance: { litres: number; on: string }): Promise<void> {
+  await manager.query('UPDATE site SET oil_opening_balance_litres = $2, oil_opening_balance_on = $3, updated_at = now() WHERE id = $1', [
+    siteId,
+    balance.litres,
+    balance.on,
+  ]);
 }

@@ -27,8 +27,18 @@ export interface PeriodRecord {
 }
 
 /** A row of the results read, in the order of its SELECT list. */
-type ResultRow = [id: string, certificateId: string, point: number, parameter: number, day: string, qualifier: string | null,
-  value: string, unit: string, mdl: string | null, ml: string | null];
+type ResultRow = [
+  id: string,
+  certificateId: string,
+  point: number,
+  parameter: number,
+  day: string,
+  qualifier: string | null,
+  value: string,
+  unit: string,
+  mdl: string | null,
+  ml: string | null,
+];
 
 /** A decimal from the database in the target unit; null when absent or not convertible. */
 function inUnit(text: string | null, unit: string, target: string): number | null {
@@ -49,10 +59,20 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     [period.permitId],
   );
   const limits: LimitInput[] = limitRows.map((row: Record<string, any>) => ({
-    id: row.id, dischargePointId: row.discharge_point_id, pointCode: row.point_code, parameterId: row.parameter_id, parameterName: row.parameter_name,
-    sncReviewFactor: row.snc_review_factor === null ? null : Number(row.snc_review_factor), isPollutant: row.parameter_code !== 'flow', method1664: row.fraction !== null,
+    id: row.id,
+    dischargePointId: row.discharge_point_id,
+    pointCode: row.point_code,
+    parameterId: row.parameter_id,
+    parameterName: row.parameter_name,
+    sncReviewFactor: row.snc_review_factor === null ? null : Number(row.snc_review_factor),
+    isPollutant: row.parameter_code !== 'flow',
+    method1664: row.fraction !== null,
     reportedDecimals: row.reported_decimals,
-    statistic: row.statistic, value: Number(row.value), unit: row.unit, frequencyCount: row.frequency_count, frequencyPer: row.frequency_per,
+    statistic: row.statistic,
+    value: Number(row.value),
+    unit: row.unit,
+    frequencyCount: row.frequency_count,
+    frequencyPer: row.frequency_per,
   }));
   const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, period.settings.sncWindow);
   const from = [period.startsOn, ...windows.map((w) => w.start)].sort()[0]!;
@@ -61,24 +81,27 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
   // Each result is carried in the base unit of what its limits measure (a mass limit measures a concentration),
   // looked up by the point's and the parameter's place in the id arrays.
   const measuredUnits = pointIds.map(() => parameterIds.map((): string | null => null));
-  for (const l of limits) measuredUnits[pointIds.indexOf(l.dischargePointId)]![parameterIds.indexOf(l.parameterId)] = measuredUnitFor(l.unit);
+  for (const l of limits)
+    measuredUnits[pointIds.indexOf(l.dischargePointId)]![parameterIds.indexOf(l.parameterId)] = measuredUnitFor(l.unit);
 
   // Points and parameters come back as their place in the id arrays, and an MDL/ML only for a
   // non-detect (the only place it is used): tens of thousands of rows carry less that way.
   const [results, flowRows] = await inParallel(
     db,
-    () => queryArrays(
-      db,
-      `SELECT r.id, s.certificate_id, array_position($1::uuid[], s.discharge_point_id) - 1, array_position($2::uuid[], r.parameter_id) - 1,
+    () =>
+      queryArrays(
+        db,
+        `SELECT r.id, s.certificate_id, array_position($1::uuid[], s.discharge_point_id) - 1, array_position($2::uuid[], r.parameter_id) - 1,
               s.collected_on::text, r.qualifier, r.value, r.unit, CASE WHEN r.qualifier = '<' THEN r.mdl END, CASE WHEN r.qualifier = '<' THEN r.ml END
          FROM lab_sample s JOIN lab_result r ON r.sample_id = s.id
         WHERE s.discharge_point_id = ANY($1::uuid[]) AND r.parameter_id = ANY($2::uuid[]) AND s.collected_on BETWEEN $3 AND $4`,
-      [pointIds, parameterIds, from, period.endsOn],
-    ),
-    () => db.query(
-      `SELECT id, discharge_point_id, day::text AS day, value, unit FROM flow_reading WHERE discharge_point_id = ANY($1::uuid[]) AND day BETWEEN $2 AND $3`,
-      [pointIds, from, period.endsOn],
-    ),
+        [pointIds, parameterIds, from, period.endsOn],
+      ),
+    () =>
+      db.query(
+        `SELECT id, discharge_point_id, day::text AS day, value, unit FROM flow_reading WHERE discharge_point_id = ANY($1::uuid[]) AND day BETWEEN $2 AND $3`,
+        [pointIds, from, period.endsOn],
+      ),
   );
   const measurements: Measurement[] = [];
   for (const [resultId, certificateId, point, parameter, day, qualifier, value, unit, mdl, ml] of results as ResultRow[]) {
@@ -87,12 +110,23 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     const measured = inUnit(value, unit, target);
     if (measured === null) continue;
     measurements.push({
-      resultId, certificateId, dischargePointId: pointIds[point]!, parameterId: parameterIds[parameter]!,
-      day, qualifier: qualifier === '<' ? '<' : null, value: measured, mdl: inUnit(mdl, unit, target), ml: inUnit(ml, unit, target),
+      resultId,
+      certificateId,
+      dischargePointId: pointIds[point]!,
+      parameterId: parameterIds[parameter]!,
+      day,
+      qualifier: qualifier === '<' ? '<' : null,
+      value: measured,
+      mdl: inUnit(mdl, unit, target),
+      ml: inUnit(ml, unit, target),
     });
   }
 
-  const flows = flowRows.map((row: Record<string, any>) => ({ dischargePointId: row.discharge_point_id, day: row.day, mgd: convert(Number(row.value), row.unit, 'MGD')! }));
+  const flows = flowRows.map((row: Record<string, any>) => ({
+    dischargePointId: row.discharge_point_id,
+    day: row.day,
+    mgd: convert(Number(row.value), row.unit, 'MGD')!,
+  }));
   // Flow limits are checked against the flow readings themselves.
   const flowParametersAt = new Map<string, string[]>();
   for (const limit of limits.filter((l) => !l.isPollutant)) {
@@ -102,7 +136,15 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
   flowRows.forEach((row: Record<string, any>, i: number) => {
     for (const parameterId of flowParametersAt.get(row.discharge_point_id) ?? []) {
       measurements.push({
-        resultId: row.id, certificateId: '', dischargePointId: row.discharge_point_id, parameterId, day: row.day, qualifier: null, value: flows[i]!.mgd, mdl: null, ml: null,
+        resultId: row.id,
+        certificateId: '',
+        dischargePointId: row.discharge_point_id,
+        parameterId,
+        day: row.day,
+        qualifier: null,
+        value: flows[i]!.mgd,
+        mdl: null,
+        ml: null,
       });
     }
   });
@@ -113,4 +155,8 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     measurements,
     flows,
   };
+}
+
+export async function saveSubmissionDate(manager: EntityManager, periodId: string, submittedOn: string): Promise<void> {
+  await manager.query('UPDATE reporting_period SET submitted_on = $2 WHERE id = $1', [periodId, submittedOn]);
 }

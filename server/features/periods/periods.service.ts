@@ -7,16 +7,17 @@ import { violationObligations } from '../../domain/notification-deadlines.js';
 import { findEquipment } from '../equipment/equipment.repository.js';
 import { oilBalanceInput } from '../oil-log/oil-on-hand.repository.js';
 import { oilOnHand } from '../../domain/oil-collection.js';
-import type { PeriodSummary } from '../../contracts/periods.js';
+import type { PeriodListQuery, PeriodSummary, SubmissionRequest } from '../../contracts/periods.js';
+import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { compilePeriod } from '../../domain/period/period-summary.js';
 import { reportTimeliness } from '../../domain/report-timeliness.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
 import { inParallel } from '../../db/in-parallel.js';
-import { notFound } from '../../errors/app-error.js';
+import { invalid, notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
-import { siteToday } from '../site-today.js';
-import { recordTrail } from '../trail/trail.js';
-import { loadPeriodInput, type PeriodRecord } from './period-input.repository.js';
+import { siteToday } from '../../kernel/site-today.js';
+import { recordTrail } from '../../kernel/trail/trail.js';
+import { loadPeriodInput, saveSubmissionDate, type PeriodRecord } from './period-input.repository.js';
 
 type Db = DataSource | EntityManager;
 
@@ -36,20 +37,42 @@ const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.sta
     p.daily_max_applies_to_each_grab, p.snc_window, (now() AT TIME ZONE s.time_zone)::date::text AS today
   FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
 const record = (row: Record<string, any>): PeriodRecord => ({
-  id: row.id, permitId: row.permit_id, siteId: row.site_id, timeZone: row.time_zone, startsOn: row.starts_on, endsOn: row.ends_on, dueOn: row.due_on, status: row.status,
-  permitKind: row.permit_kind, permitNumber: row.permit_number, lateReportDays: row.late_report_days, submittedOn: row.submitted_on, today: row.today,
+  id: row.id,
+  permitId: row.permit_id,
+  siteId: row.site_id,
+  timeZone: row.time_zone,
+  startsOn: row.starts_on,
+  endsOn: row.ends_on,
+  dueOn: row.due_on,
+  status: row.status,
+  permitKind: row.permit_kind,
+  permitNumber: row.permit_number,
+  lateReportDays: row.late_report_days,
+  submittedOn: row.submitted_on,
+  today: row.today,
   settings: {
-    kind: row.permit_kind, nonDetectPolicy: row.non_detect_policy, massLoadingFactor: Number(row.mass_loading_factor),
-    dailyMaxAppliesToEachGrab: row.daily_max_applies_to_each_grab, sncWindow: row.snc_window,
+    kind: row.permit_kind,
+    nonDetectPolicy: row.non_detect_policy,
+    massLoadingFactor: Number(row.mass_loading_factor),
+    dailyMaxAppliesToEachGrab: row.daily_max_applies_to_each_grab,
+    sncWindow: row.snc_window,
   },
 });
 
 /** Creates the permit's periods up to the one running today; idempotent. */
 export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
-  const [permit] = await db.query('SELECT id, site_id, effective_from::text, effective_to::text, reporting_frequency, report_due_days FROM permit WHERE id = $1', [permitId]);
+  const [permit] = await db.query(
+    'SELECT id, site_id, effective_from::text, effective_to::text, reporting_frequency, report_due_days FROM permit WHERE id = $1',
+    [permitId],
+  );
   if (!permit) return;
   const periods = reportingPeriods(
-    { effectiveFrom: permit.effective_from, effectiveTo: permit.effective_to, reportingFrequency: permit.reporting_frequency, reportDueDays: permit.report_due_days },
+    {
+      effectiveFrom: permit.effective_from,
+      effectiveTo: permit.effective_to,
+      reportingFrequency: permit.reporting_frequency,
+      reportDueDays: permit.report_due_days,
+    },
     await siteToday(db, permit.site_id),
   );
   if (periods.length === 0) return;
@@ -98,7 +121,11 @@ async function periodTotals(db: Db, period: PeriodRecord) {
   );
   const balance = await oilBalanceInput(db, period.siteId, period.endsOn);
   return {
-    oil: { collectedLitres: Number(totals.collected), shippedLitres: Number(totals.shipped), onHandAtEndLitres: balance ? oilOnHand(balance).litres : null },
+    oil: {
+      collectedLitres: Number(totals.collected),
+      shippedLitres: Number(totals.shipped),
+      onHandAtEndLitres: balance ? oilOnHand(balance).litres : null,
+    },
     openFollowUps: totals.open_follow_ups as number,
     labFlagCount: totals.lab_flags as number,
   };
@@ -106,13 +133,24 @@ async function periodTotals(db: Db, period: PeriodRecord) {
 
 /** The summary of one period, compiled now from the records (nothing is written). */
 export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
-  const [input, totals] = await inParallel(db, () => loadPeriodInput(db, period), () => periodTotals(db, period));
+  const [input, totals] = await inParallel(
+    db,
+    () => loadPeriodInput(db, period),
+    () => periodTotals(db, period),
+  );
   const core = compilePeriod(input);
   const timeliness = reportTimeliness(period.dueOn, period.submittedOn, period.today, period.lateReportDays, period.permitKind);
   return {
-    periodId: period.id, permitId: period.permitId, siteId: period.siteId, status: period.status,
-    period: { start: period.startsOn, end: period.endsOn, due: period.dueOn }, compiledAt: now.toISOString(), ...core,
-    ...totals, reportTimeliness: timeliness, cautions: summaryCautions,
+    periodId: period.id,
+    permitId: period.permitId,
+    siteId: period.siteId,
+    status: period.status,
+    period: { start: period.startsOn, end: period.endsOn, due: period.dueOn },
+    compiledAt: now.toISOString(),
+    ...core,
+    ...totals,
+    reportTimeliness: timeliness,
+    cautions: summaryCautions,
   };
 }
 
@@ -125,42 +163,65 @@ export async function compileAndSave(dataSource: DataSource, user: CurrentUser, 
 }
 
 /** The compile itself, inside the caller's transaction (the seed compiles the demo's periods). */
-export async function compileWithin(manager: EntityManager, user: Pick<CurrentUser, 'id' | 'email'>, periodId: string): Promise<PeriodSummary> {
+export async function compileWithin(
+  manager: EntityManager,
+  user: Pick<CurrentUser, 'id' | 'email'>,
+  periodId: string,
+): Promise<PeriodSummary> {
   const period = await findPeriod(manager, periodId);
   if (!period) throw notFound('Period');
   const summary = await summarise(manager, period);
   // The user became aware of a result when its certificate was entered: one read for all exceedances.
-  const certificateIds = [...new Set(summary.rows.flatMap((row) => row.exceedances.map((e) => e.certificateIds[0]).filter((id): id is string => Boolean(id))))];
+  const certificateIds = [
+    ...new Set(summary.rows.flatMap((row) => row.exceedances.map((e) => e.certificateIds[0]).filter((id): id is string => Boolean(id)))),
+  ];
   const enteredAt = new Map<string, Date>(
-    certificateIds.length === 0 ? [] : (await manager.query('SELECT id, created_at FROM lab_certificate WHERE id = ANY($1::uuid[])', [certificateIds]))
-      .map((row: { id: string; created_at: Date }) => [row.id, row.created_at]),
+    certificateIds.length === 0
+      ? []
+      : (await manager.query('SELECT id, created_at FROM lab_certificate WHERE id = ANY($1::uuid[])', [certificateIds])).map(
+          (row: { id: string; created_at: Date }) => [row.id, row.created_at],
+        ),
   );
   for (const row of summary.rows) {
     for (const exceedance of row.exceedances) {
-      const awareAt = enteredAt.get(exceedance.certificateIds[0] ?? '')
-        ?? new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`);
+      const awareAt =
+        enteredAt.get(exceedance.certificateIds[0] ?? '') ??
+        new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`);
       for (const obligation of violationObligations(period.permitKind, row.statistic, awareAt)) {
         await openFollowUp(manager, {
           // Keyed by point, parameter and day (or month): one sample over a concentration and a
           // loading limit at once is one violation to report, not two.
-          siteId: period.siteId, kind: obligation.kind, sourceEntity: 'exceedance', sourceId: stableId(row.dischargePointId, row.parameterId, exceedance.date),
-          title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`, dueAt: obligation.dueAt,
+          siteId: period.siteId,
+          kind: obligation.kind,
+          sourceEntity: 'exceedance',
+          sourceId: stableId(row.dischargePointId, row.parameterId, exceedance.date),
+          title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`,
+          dueAt: obligation.dueAt,
         });
       }
     }
     for (const missed of row.missedMonitoring) {
       await openFollowUp(manager, {
-        siteId: period.siteId, kind: 'missed-sample', sourceEntity: 'missed-monitoring', sourceId: stableId(row.dischargePointId, row.parameterId, missed.unit),
+        siteId: period.siteId,
+        kind: 'missed-sample',
+        sourceEntity: 'missed-monitoring',
+        sourceId: stableId(row.dischargePointId, row.parameterId, missed.unit),
         title: `Missed sample: ${row.parameter} at ${row.pointCode}, ${missed.unit} (${missed.taken} of ${missed.required})`,
         dueAt: DateTime.fromISO(period.dueOn, { zone: period.timeZone }).endOf('day').toJSDate(),
       });
     }
   }
   await openSiteDeadlines(manager, period);
-  const [saved] = await manager.query(`UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
-    compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`, [periodId, JSON.stringify(summary)]);
+  const [saved] = await manager.query(
+    `UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
+    compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`,
+    [periodId, JSON.stringify(summary)],
+  );
   await recordTrail(manager, user, {
-    action: 'compile', entity: 'reporting-period', entityId: periodId, siteId: period.siteId,
+    action: 'compile',
+    entity: 'reporting-period',
+    entityId: periodId,
+    siteId: period.siteId,
     after: { status: saved[0].status, exceeded: summary.rows.filter((r) => r.exceeded).length },
   });
   return { ...summary, status: saved[0].status };
@@ -182,22 +243,34 @@ async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): 
     for (const deadline of manifestDeadlines(shipment.generator_status, shipment.manifest_rule, shipment.shipped_on)) {
       if (daysLeft(deadline.dueOn, today) > 7) continue;
       await openFollowUp(manager, {
-        siteId: period.siteId, kind: deadline.step, sourceEntity: 'shipment', sourceId: shipment.id,
-        title: `${stepTitles[deadline.step]}: signed copy of ${shipment.document_number} not back (${deadline.source})`, dueAt: endOfDay(deadline.dueOn),
+        siteId: period.siteId,
+        kind: deadline.step,
+        sourceEntity: 'shipment',
+        sourceId: shipment.id,
+        title: `${stepTitles[deadline.step]}: signed copy of ${shipment.document_number} not back (${deadline.source})`,
+        dueAt: endOfDay(deadline.dueOn),
       });
     }
   }
   if (period.status !== 'signed' && daysLeft(period.dueOn, today) <= 7 && daysLeft(period.dueOn, today) >= 0) {
     await openFollowUp(manager, {
-      siteId: period.siteId, kind: 'report-due', sourceEntity: 'reporting-period', sourceId: period.id,
-      title: `Send the periodic report for ${period.startsOn} – ${period.endsOn}`, dueAt: endOfDay(period.dueOn),
+      siteId: period.siteId,
+      kind: 'report-due',
+      sourceEntity: 'reporting-period',
+      sourceId: period.id,
+      title: `Send the periodic report for ${period.startsOn} – ${period.endsOn}`,
+      dueAt: endOfDay(period.dueOn),
     });
   }
   const equipment = await findEquipment(manager, { siteIds: [period.siteId] }, today);
   for (const item of equipment.filter((e) => e.upkeepOverdue && e.nextCheckDueOn)) {
     await openFollowUp(manager, {
-      siteId: period.siteId, kind: 'upkeep-due', sourceEntity: 'equipment', sourceId: stableId(item.id, item.nextCheckDueOn!),
-      title: `Upkeep check overdue: ${item.name}`, dueAt: endOfDay(item.nextCheckDueOn!),
+      siteId: period.siteId,
+      kind: 'upkeep-due',
+      sourceEntity: 'equipment',
+      sourceId: stableId(item.id, item.nextCheckDueOn!),
+      title: `Upkeep check overdue: ${item.name}`,
+      dueAt: endOfDay(item.nextCheckDueOn!),
     });
   }
 }
@@ -207,3 +280,47 @@ const stepTitles: Record<string, string> = {
   'exception-report': 'File an exception report',
   'copy-with-note-of-non-receipt': 'Send a copy with a note that the signed copy was not received',
 };
+
+/** Reporting periods of the permits: listed, summarised on demand, compiled, their submission recorded. */
+export class PeriodsService {
+  constructor(private readonly dataSource: DataSource) {}
+
+  async list(user: CurrentUser, { siteId, permitId }: PeriodListQuery) {
+    if (siteId) assertSiteAllowed(user, siteId);
+    return { items: await listPeriods(this.dataSource, siteId ? [siteId] : user.siteIds, permitId) };
+  }
+
+  async summary(user: CurrentUser, id: string): Promise<PeriodSummary> {
+    return summarise(this.dataSource, await this.visiblePeriod(user, id));
+  }
+
+  async compile(user: CurrentUser, id: string): Promise<PeriodSummary> {
+    const period = await this.visiblePeriod(user, id);
+    return compileAndSave(this.dataSource, user, period.id);
+  }
+
+  /** Records when the periodic report went to the authority (signing and packs come later). */
+  async recordSubmission(user: CurrentUser, id: string, request: SubmissionRequest): Promise<PeriodSummary> {
+    const period = await this.visiblePeriod(user, id);
+    if (request.submittedOn < period.endsOn) throw invalid({ submittedOn: 'Before the period ended' });
+    if (request.submittedOn > period.today) throw invalid({ submittedOn: 'Cannot be in the future' });
+    await this.dataSource.transaction(async (manager) => {
+      await saveSubmissionDate(manager, period.id, request.submittedOn);
+      await recordTrail(manager, user, {
+        action: 'record-submission',
+        entity: 'reporting-period',
+        entityId: period.id,
+        siteId: period.siteId,
+        before: { submittedOn: period.submittedOn },
+        after: request,
+      });
+    });
+    return summarise(this.dataSource, (await findPeriod(this.dataSource, period.id))!);
+  }
+
+  private async visiblePeriod(user: CurrentUser, id: string): Promise<PeriodRecord> {
+    const period = await findPeriod(this.dataSource, id);
+    assertSiteVisible(user, period?.siteId, 'Period');
+    return period!;
+  }
+}

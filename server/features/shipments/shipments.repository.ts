@@ -3,6 +3,7 @@ import type { Page } from '../../contracts/paging.js';
 import type { ShipmentView } from '../../contracts/shipments.js';
 import { daysLeft, manifestDeadlines, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
 import { queryPage } from '../../db/page.js';
+import { insertRow, updateRow, type Row } from '../../db/rows.js';
 
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
@@ -12,7 +13,9 @@ const firstSteps = (['large', 'small'] as const).flatMap((status) =>
   (['current', 'before-2025'] as const).map((rule) => ({ status, rule, days: manifestDeadlines(status, rule, '2000-01-01')[0]!.days })),
 );
 /** SQL for those days at the shipment's site; `at` is the position of the three array parameters. */
-const firstStepSql = (at: number) => `(SELECT days FROM unnest($${at}::text[], $${at + 1}::text[], $${at + 2}::int[]) AS f(status, rule, days)
+const firstStepSql = (
+  at: number,
+) => `(SELECT days FROM unnest($${at}::text[], $${at + 1}::text[], $${at + 2}::int[]) AS f(status, rule, days)
   WHERE f.status = st.generator_status AND f.rule = st.manifest_rule)`;
 const firstStepParams = () => [firstSteps.map((f) => f.status), firstSteps.map((f) => f.rule), firstSteps.map((f) => f.days)];
 
@@ -20,7 +23,9 @@ const statusSql = (at: number) => `CASE WHEN s.signed_copy_received_on IS NOT NU
   WHEN ${firstStepSql(at)} IS NOT NULL AND (now() AT TIME ZONE st.time_zone)::date > s.shipped_on + ${firstStepSql(at)} THEN 'overdue'
   ELSE 'awaiting-signed-copy' END`;
 
-const select = (at: number) => `SELECT s.*, st.generator_status, st.manifest_rule, (now() AT TIME ZONE st.time_zone)::date::text AS today, ${statusSql(at)} AS status,
+const select = (
+  at: number,
+) => `SELECT s.*, st.generator_status, st.manifest_rule, (now() AT TIME ZONE st.time_zone)::date::text AS today, ${statusSql(at)} AS status,
     coalesce((SELECT json_agg(json_build_object('id', f.id, 'fileName', f.file_name, 'mediaType', f.media_type, 'sizeBytes', f.size_bytes, 'sha256', f.sha256))
                 FROM shipment_file sf JOIN stored_file f ON f.id = sf.file_id WHERE sf.shipment_id = s.id), '[]') AS files
   FROM shipment s JOIN site st ON st.id = s.site_id`;
@@ -29,15 +34,35 @@ function view(row: Record<string, any>): ShipmentView {
   const deadlines = row.signed_copy_received_on
     ? []
     : manifestDeadlines(row.generator_status as GeneratorStatus, row.manifest_rule as ManifestRule, row.shipped_on).map((d) => ({
-        ...d, daysLeft: daysLeft(d.dueOn, row.today),
+        ...d,
+        daysLeft: daysLeft(d.dueOn, row.today),
       }));
   return {
-    id: row.id, siteId: row.site_id, shippedOn: row.shipped_on, documentKind: row.document_kind, documentNumber: row.document_number,
-    transporterName: row.transporter_name, transporterEpaId: row.transporter_epa_id, receiverName: row.receiver_name,
-    receiverEpaId: row.receiver_epa_id, wasteDescription: row.waste_description, quantity: Number(row.quantity), quantityUnit: row.quantity_unit,
-    quantityLitres: Number(row.quantity_litres), totalHalogensPpm: n(row.total_halogens_ppm), burnedAsFuel: row.burned_as_fuel,
-    arsenicPpm: n(row.arsenic_ppm), cadmiumPpm: n(row.cadmium_ppm), chromiumPpm: n(row.chromium_ppm), leadPpm: n(row.lead_ppm),
-    flashPointF: n(row.flash_point_f), signedCopyReceivedOn: row.signed_copy_received_on, status: row.status, deadlines, flags: row.flags, files: row.files,
+    id: row.id,
+    siteId: row.site_id,
+    shippedOn: row.shipped_on,
+    documentKind: row.document_kind,
+    documentNumber: row.document_number,
+    transporterName: row.transporter_name,
+    transporterEpaId: row.transporter_epa_id,
+    receiverName: row.receiver_name,
+    receiverEpaId: row.receiver_epa_id,
+    wasteDescription: row.waste_description,
+    quantity: Number(row.quantity),
+    quantityUnit: row.quantity_unit,
+    quantityLitres: Number(row.quantity_litres),
+    totalHalogensPpm: n(row.total_halogens_ppm),
+    burnedAsFuel: row.burned_as_fuel,
+    arsenicPpm: n(row.arsenic_ppm),
+    cadmiumPpm: n(row.cadmium_ppm),
+    chromiumPpm: n(row.chromium_ppm),
+    leadPpm: n(row.lead_ppm),
+    flashPointF: n(row.flash_point_f),
+    signedCopyReceivedOn: row.signed_copy_received_on,
+    status: row.status,
+    deadlines,
+    flags: row.flags,
+    files: row.files,
   };
 }
 
@@ -46,7 +71,11 @@ export async function findShipment(db: Db, id: string): Promise<ShipmentView | n
   return row ? view(row) : null;
 }
 
-const sorts: Record<string, string> = { shippedOn: 's.shipped_on', documentNumber: 's.document_number', quantityLitres: 's.quantity_litres' };
+const sorts: Record<string, string> = {
+  shippedOn: 's.shipped_on',
+  documentNumber: 's.document_number',
+  quantityLitres: 's.quantity_litres',
+};
 
 export async function pageShipments(
   db: Db,
@@ -54,12 +83,29 @@ export async function pageShipments(
   query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; status?: string; search?: string },
 ): Promise<Page<ShipmentView>> {
   const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
-  return queryPage(db, {
-    select: select(4),
-    countFrom: 'FROM shipment s JOIN site st ON st.id = s.site_id',
-    where: `s.site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR ${statusSql(4)} = $2)
+  return queryPage(
+    db,
+    {
+      select: select(4),
+      countFrom: 'FROM shipment s JOIN site st ON st.id = s.site_id',
+      where: `s.site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR ${statusSql(4)} = $2)
       AND ($3::text IS NULL OR s.document_number ILIKE $3 OR s.transporter_name ILIKE $3 OR s.receiver_name ILIKE $3)`,
-    order: `${sorts[query.sortBy ?? ''] ?? 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`,
-    params: [siteIds, query.status ?? null, search, ...firstStepParams()],
-  }, query, view);
+      order: `${sorts[query.sortBy ?? ''] ?? 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`,
+      params: [siteIds, query.status ?? null, search, ...firstStepParams()],
+    },
+    query,
+    view,
+  );
+}
+
+export async function insertShipment(manager: EntityManager, fields: Row): Promise<string> {
+  return (await insertRow(manager, 'shipment', fields)).id as string;
+}
+
+export async function updateShipment(manager: EntityManager, id: string, changes: Row): Promise<void> {
+  await updateRow(manager, 'shipment', id, changes);
+}
+
+export async function attachShipmentFile(manager: EntityManager, shipmentId: string, fileId: string): Promise<void> {
+  await manager.query('INSERT INTO shipment_file (shipment_id, file_id) VALUES ($1, $2)', [shipmentId, fileId]);
 }

@@ -1,4 +1,4 @@
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { SiteSummary } from '../../contracts/sites.js';
 
 const selectSites = `
@@ -39,4 +39,22 @@ export async function findSites(dataSource: DataSource, ids: string[]): Promise<
 export async function findAllSites(dataSource: DataSource): Promise<SiteSummary[]> {
   const rows: SiteRow[] = await dataSource.query(`${selectSites} ORDER BY s.name`);
   return rows.map(toSummary);
+}
+
+/** The company a new site joins: that of the creator's sites, else the first company. */
+export async function companyForNewSite(manager: EntityManager, creatorSiteIds: string[]): Promise<string> {
+  const [row]: Array<{ company_id: string }> = await manager.query(
+    `SELECT coalesce((SELECT company_id FROM site WHERE id = ANY($1::uuid[]) LIMIT 1),
+                     (SELECT id FROM company ORDER BY created_at LIMIT 1)) AS company_id`,
+    [creatorSiteIds],
+  );
+  return row!.company_id;
+}
+
+export async function grantSite(manager: EntityManager, userId: string, siteId: string): Promise<void> {
+  await manager.query('INSERT INTO user_site (user_id, site_id) VALUES ($1, $2)', [userId, siteId]);
+}
+
+export async function revokeSiteFromEveryone(manager: EntityManager, siteId: string): Promise<void> {
+  await manager.query('DELETE FROM user_site WHERE site_id = $1', [siteId]);
 }

@@ -65,16 +65,11 @@ export async function findUserView(manager: EntityManager | DataSource, id: stri
 export async function replaceUserSites(manager: EntityManager, userId: string, siteIds: string[]): Promise<void> {
   await manager.query('DELETE FROM user_site WHERE user_id = $1', [userId]);
   if (siteIds.length > 0) {
-    await manager.query(
-      'INSERT INTO user_site (user_id, site_id) SELECT $1, unnest($2::uuid[])',
-      [userId, [...new Set(siteIds)]],
-    );
+    await manager.query('INSERT INTO user_site (user_id, site_id) SELECT $1, unnest($2::uuid[])', [userId, [...new Set(siteIds)]]);
   }
 }
 
 export async function countExistingSites(manager: EntityManager, siteIds: string[]): Promise<number> {
-  const [{ count }] = await manager.query('SELECT count(*)::int AS count FROM site WHERE id = ANY($1::uuid[])', [
-    [...new Set(siteIds)],
-  ]);
+  const [{ count }] = await manager.query('SELECT count(*)::int AS count FROM site WHERE id = ANY($1::uuid[])', [[...new Set(siteIds)]]);
   return count;
 }

@@ -1,48 +1,27 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { z } from 'zod';
 import { PageQuery } from '../../contracts/paging.js';
+import { IdParams } from '../../contracts/params.js';
 import { CreateUserRequest, UpdateUserRequest } from '../../contracts/users.js';
-import { currentUser } from '../../auth/current-user.js';
-import { notFound } from '../../errors/app-error.js';
-import { requirePermission } from '../../middleware/require-permission.js';
-import { validate } from '../../middleware/validate.js';
-import { findAllSites } from '../sites/sites.repository.js';
-import { findUserView, pageUsers } from './users.repository.js';
+import { endpoint } from '../../http/endpoint.js';
 import { UsersService } from './users.service.js';
-
-const IdParams = z.object({ id: z.uuid('Not a valid id') });
 
 export function usersRoutes(dataSource: DataSource): Router {
   const router = Router();
-  const service = new UsersService(dataSource);
+  const users = new UsersService(dataSource);
 
-  router.get('/', requirePermission('users.read'), validate({ query: PageQuery }), async (_req, res) => {
-    res.json(await pageUsers(dataSource, res.locals.query));
-  });
-
-  // Every site, so an administrator can grant access to sites they do not work at themselves.
-  router.get('/site-options', requirePermission('users.manage'), async (_req, res) => {
-    res.json({ items: (await findAllSites(dataSource)).map(({ id, name, companyName }) => ({ id, name, companyName })) });
-  });
-
-  router.get('/:id', requirePermission('users.read'), validate({ params: IdParams }), async (_req, res) => {
-    const user = await findUserView(dataSource, res.locals.params.id);
-    if (!user) throw notFound('User');
-    res.json(user);
-  });
-
-  router.post('/', requirePermission('users.manage'), validate({ body: CreateUserRequest }), async (_req, res) => {
-    res.status(201).json(await service.create(currentUser(res), res.locals.body));
-  });
-
+  router.get('/', ...endpoint({ action: 'users.read', query: PageQuery }, ({ query }) => users.list(query)));
+  router.get('/site-options', ...endpoint({ action: 'users.manage' }, () => users.siteOptions()));
+  router.get('/:id', ...endpoint({ action: 'users.read', params: IdParams }, ({ params }) => users.get(params.id)));
+  router.post(
+    '/',
+    ...endpoint({ action: 'users.manage', body: CreateUserRequest, status: 201 }, ({ user, body }) => users.create(user, body)),
+  );
   router.patch(
     '/:id',
-    requirePermission('users.manage'),
-    validate({ params: IdParams, body: UpdateUserRequest }),
-    async (_req, res) => {
-      res.json(await service.update(currentUser(res), res.locals.params.id, res.locals.body));
-    },
+    ...endpoint({ action: 'users.manage', params: IdParams, body: UpdateUserRequest }, ({ user, params, body }) =>
+      users.update(user, params.id, body),
+    ),
   );
 
   return router;

@@ -1,15 +1,32 @@
 import { can } from '../../contracts/permissions.js';
 import type { DataSource, EntityManager } from 'typeorm';
+import type { PageQuery } from '../../contracts/paging.js';
 import type { CreateUserRequest, UpdateUserRequest, UserView } from '../../contracts/users.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
-import { recordTrail } from '../trail/trail.js';
-import { User } from './user.entity.js';
-import { countExistingSites, findUserView, replaceUserSites } from './users.repository.js';
+import { recordTrail } from '../../kernel/trail/trail.js';
+import { User } from '../../kernel/people/user.entity.js';
+import { findAllSites } from '../sites/sites.repository.js';
+import { countExistingSites, findUserView, pageUsers, replaceUserSites } from './users.repository.js';
 
 /** The administrator's management of who may sign in, with which role, at which sites. */
 export class UsersService {
   constructor(private readonly dataSource: DataSource) {}
+
+  list(query: PageQuery) {
+    return pageUsers(this.dataSource, query);
+  }
+
+  async get(id: string): Promise<UserView> {
+    const user = await findUserView(this.dataSource, id);
+    if (!user) throw notFound('User');
+    return user;
+  }
+
+  /** Every site, so an administrator can grant access to sites they do not work at themselves. */
+  async siteOptions() {
+    return { items: (await findAllSites(this.dataSource)).map(({ id, name, companyName }) => ({ id, name, companyName })) };
+  }
 
   async create(actor: CurrentUser, request: CreateUserRequest): Promise<UserView> {
     return this.dataSource.transaction(async (manager) => {

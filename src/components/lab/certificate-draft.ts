@@ -5,21 +5,53 @@ export type DraftSample = Draft['samples'][number];
 export type DraftResult = DraftSample['results'][number];
 
 export const blankResult = (parameterId = ''): DraftResult => ({
-  parameterId, method: '1664B', qualifier: null, value: '', mdl: 1.4, ml: 5.0, unit: 'mg/L', analysedAt: null, qcBatchCode: null,
+  parameterId,
+  method: '1664B',
+  qualifier: null,
+  value: '',
+  mdl: 1.4,
+  ml: 5.0,
+  unit: 'mg/L',
+  analysedAt: null,
+  qcBatchCode: null,
 });
 
 export const blankSample = (dischargePointId = ''): DraftSample => ({
-  dischargePointId, collectedAt: '', collectedBy: '', sampleType: 'grab', preservationConfirmed: true,
-  temperatureOnReceiptC: null, chainOfCustodyNumber: null, results: [blankResult()],
+  dischargePointId,
+  collectedAt: '',
+  collectedBy: '',
+  sampleType: 'grab',
+  preservationConfirmed: true,
+  temperatureOnReceiptC: null,
+  chainOfCustodyNumber: null,
+  results: [blankResult()],
 });
 
 export const blankDraft = (): Draft => ({
-  labName: '', labAccreditationNumber: '', reportNumber: '', receivedOn: new Date().toISOString().slice(0, 10), qcBatches: [], samples: [blankSample()],
+  labName: '',
+  labAccreditationNumber: '',
+  reportNumber: '',
+  receivedOn: new Date().toISOString().slice(0, 10),
+  qcBatches: [],
+  samples: [blankSample()],
 });
 
 const nullableWhenEmpty = new Set([
-  'temperatureOnReceiptC', 'chainOfCustodyNumber', 'analysedAt', 'qcBatchCode', 'mdl', 'ml', 'oprRecoveryPct', 'msRecoveryPct',
-  'msdRecoveryPct', 'rpdPct', 'methodBlank', 'spikeTrue', 'spikeBackground', 'msFound', 'msdFound',
+  'temperatureOnReceiptC',
+  'chainOfCustodyNumber',
+  'analysedAt',
+  'qcBatchCode',
+  'mdl',
+  'ml',
+  'oprRecoveryPct',
+  'msRecoveryPct',
+  'msdRecoveryPct',
+  'rpdPct',
+  'methodBlank',
+  'spikeTrue',
+  'spikeBackground',
+  'msFound',
+  'msdFound',
 ]);
 
 /** Empty optional inputs travel as null, so the server does not read them as bad numbers. */
@@ -36,11 +68,23 @@ export function fromDetail(detail: CertificateDetail): Draft {
     receivedOn: detail.receivedOn,
     qcBatches: detail.qcBatches.map(({ id: _id, flags: _flags, ...batch }) => batch),
     samples: detail.samples.map((sample) => ({
-      dischargePointId: sample.dischargePointId, collectedAt: sample.collectedLocal, collectedBy: sample.collectedBy, sampleType: sample.sampleType,
-      preservationConfirmed: sample.preservationConfirmed, temperatureOnReceiptC: sample.temperatureOnReceiptC, chainOfCustodyNumber: sample.chainOfCustodyNumber,
+      dischargePointId: sample.dischargePointId,
+      collectedAt: sample.collectedLocal,
+      collectedBy: sample.collectedBy,
+      sampleType: sample.sampleType,
+      preservationConfirmed: sample.preservationConfirmed,
+      temperatureOnReceiptC: sample.temperatureOnReceiptC,
+      chainOfCustodyNumber: sample.chainOfCustodyNumber,
       results: sample.results.map((result) => ({
-        parameterId: result.parameterId, method: result.method, qualifier: result.qualifier, value: result.valueReported, mdl: result.mdl, ml: result.ml,
-        unit: result.unit, analysedAt: result.analysedLocal, qcBatchCode: result.qcBatchCode,
+        parameterId: result.parameterId,
+        method: result.method,
+        qualifier: result.qualifier,
+        value: result.valueReported,
+        mdl: result.mdl,
+        ml: result.ml,
+        unit: result.unit,
+        analysedAt: result.analysedLocal,
+        qcBatchCode: result.qcBatchCode,
       })),
     })),
   };

@@ -1,4 +1,5 @@
-import type { Row } from '../../db/rows.js';
+import { DataSource, type EntityManager } from 'typeorm';
+import { camelRow, selectRow, type Row } from '../../db/rows.js';
 
 const isoDay = (value: unknown) => (value instanceof Date ? value.toISOString().slice(0, 10) : (value as string | null));
 
@@ -43,3 +44,35 @@ export const limitTarget = (siteId: string) => ({
   }),
   siteIdOf: () => siteId,
 });
+
+export async function findPermits(dataSource: DataSource, siteIds: string[]) {
+  const rows: Row[] = await dataSource.query('SELECT * FROM permit WHERE site_id = ANY($1::uuid[]) ORDER BY effective_from DESC', [
+    siteIds,
+  ]);
+  return rows.map((row) => permitTarget.view(camelRow(row)));
+}
+
+export async function findPermitRow(db: DataSource | EntityManager, id: string): Promise<Row | null> {
+  return selectRow(db instanceof DataSource ? db.manager : db, 'permit', id);
+}
+
+export async function findLimits(dataSource: DataSource, permitId: string, siteId: string) {
+  const rows: Row[] = await dataSource.query(
+    `SELECT l.* FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id
+      WHERE l.permit_id = $1 ORDER BY d.code, l.parameter_id, l.statistic`,
+    [permitId],
+  );
+  return rows.map((row) => limitTarget(siteId).view(camelRow(row)));
+}
+
+/** The discharge points a permit's limits apply to (their lab flags follow the limits). */
+export async function limitedPointIds(dataSource: DataSource, permitId: string): Promise<string[]> {
+  const rows: Array<{ discharge_point_id: string }> = await dataSource.query(
+    'SELECT DISTINCT discharge_point_id FROM permit_limit WHERE permit_id = $1',
+    [permitId],
+  );
+  return rows.map((row) => row.discharge_point_id);
+}
+
+export const findPointRow = (manager: EntityManager, id: string) => selectRow(manager, 'discharge_point', id);
+export const findParameterRow = (manager: EntityManager, id: string) => selectRow(manager, 'parameter', id);

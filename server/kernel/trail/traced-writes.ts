@@ -28,7 +28,13 @@ export async function createTraced<V>(
     const row = await insertRow(manager, target.table, fields);
     await hooks.afterWrite?.(manager, row);
     const after = target.view(row);
-    await recordTrail(manager, actor, { action: 'create', entity: target.entity, entityId: String(row.id), siteId: target.siteIdOf(row), after });
+    await recordTrail(manager, actor, {
+      action: 'create',
+      entity: target.entity,
+      entityId: String(row.id),
+      siteId: target.siteIdOf(row),
+      after,
+    });
     return after;
   });
 }
@@ -48,7 +54,12 @@ export async function updateTraced<V>(
     const row = await updateRow(manager, target.table, id, changes);
     const after = target.view(row);
     await recordTrail(manager, actor, {
-      action: 'update', entity: target.entity, entityId: id, siteId: target.siteIdOf(row), before: target.view(beforeRow), after,
+      action: 'update',
+      entity: target.entity,
+      entityId: id,
+      siteId: target.siteIdOf(row),
+      before: target.view(beforeRow),
+      after,
     });
     return after;
   });
@@ -67,7 +78,11 @@ export async function deleteTraced<V>(
     await check?.(manager, beforeRow);
     await deleteRow(manager, target.table, id, target.entity);
     await recordTrail(manager, actor, {
-      action: 'delete', entity: target.entity, entityId: id, siteId: target.siteIdOf(beforeRow), before: target.view(beforeRow),
+      action: 'delete',
+      entity: target.entity,
+      entityId: id,
+      siteId: target.siteIdOf(beforeRow),
+      before: target.view(beforeRow),
     });
   });
 }

@@ -43,7 +43,12 @@ function mapHeader(headers: string[], columns: Columns): Map<number, string> {
 
 /** Rows of an XLSX file, read with exceljs's streaming reader (first worksheet only). */
 export async function* xlsxRows<K extends string>(buffer: Buffer, columns: Columns = importColumns): AsyncGenerator<ImportRow<K>> {
-  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(buffer), { sharedStrings: 'cache', worksheets: 'emit', hyperlinks: 'ignore', styles: 'cache' });
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(buffer), {
+    sharedStrings: 'cache',
+    worksheets: 'emit',
+    hyperlinks: 'ignore',
+    styles: 'cache',
+  });
   let header: Map<number, string> | null = null;
   for await (const worksheet of reader) {
     for await (const row of worksheet) {
@@ -53,7 +58,10 @@ export async function* xlsxRows<K extends string>(buffer: Buffer, columns: Colum
         continue;
       }
       if (values.every((value) => value === '')) continue;
-      yield { row: row.number, cells: Object.fromEntries([...header].map(([index, key]) => [key, values[index] ?? ''])) as Partial<Record<K, string>> };
+      yield {
+        row: row.number,
+        cells: Object.fromEntries([...header].map(([index, key]) => [key, values[index] ?? ''])) as Partial<Record<K, string>>,
+      };
     }
     break;
   }
@@ -72,10 +80,14 @@ export async function* csvRows<K extends string>(buffer: Buffer, columns: Column
         header = mapHeader(record, columns);
         continue;
       }
-      yield { row: rowNumber, cells: Object.fromEntries([...header].map(([index, key]) => [key, record[index] ?? ''])) as Partial<Record<K, string>> };
+      yield {
+        row: rowNumber,
+        cells: Object.fromEntries([...header].map(([index, key]) => [key, record[index] ?? ''])) as Partial<Record<K, string>>,
+      };
     }
   } catch (error) {
-    if ((error as { code?: string }).code?.startsWith('CSV_')) throw invalid({ file: (error as Error).message }, 'The CSV file cannot be read');
+    if ((error as { code?: string }).code?.startsWith('CSV_'))
+      throw invalid({ file: (error as Error).message }, 'The CSV file cannot be read');
     throw error;
   }
   if (!header) throw invalid({ file: 'The file has no header row' });
@@ -84,7 +96,10 @@ export async function* csvRows<K extends string>(buffer: Buffer, columns: Column
 export const xlsxType = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 /** The rows of an uploaded XLSX (by its content) or CSV (text, named .csv); anything else is a 415. */
-export async function spreadsheetRows<K extends string>(file: Upload | undefined, columns: Columns = importColumns): Promise<AsyncGenerator<ImportRow<K>>> {
+export async function spreadsheetRows<K extends string>(
+  file: Upload | undefined,
+  columns: Columns = importColumns,
+): Promise<AsyncGenerator<ImportRow<K>>> {
   if (!file || file.size === 0) throw invalid({ file: 'Attach an XLSX or CSV file' });
   const type = await fileTypeFromBuffer(file.buffer);
   if (type?.mime === xlsxType) return xlsxRows<K>(file.buffer, columns);
@@ -94,6 +109,12 @@ export async function spreadsheetRows<K extends string>(file: Upload | undefined
 }
 
 /** The 400 answer of a commit refused for its row errors, carrying the whole report. */
-export function rowErrorsBody<R extends { errors: unknown[] }>(report: R) {
-  return { error: { code: 'invalid_rows', message: `${report.errors.length} row error(s): nothing was imported`, fields: { file: 'See the row errors' } }, report };
+export function rowErrors<R extends { errors: unknown[] }>(report: R): AppError {
+  return new AppError(
+    400,
+    'invalid_rows',
+    `${report.errors.length} row error(s): nothing was imported`,
+    { file: 'See the row errors' },
+    { report },
+  );
 }

@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, JoinTable, ManyToMany, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { Role } from '../../contracts/permissions.js';
+import type { UnitSystem } from '../../contracts/users.js';
 import { Site } from '../sites/site.entity.js';
 
 @Entity('app_user')
@@ -24,6 +25,10 @@ export class User {
 
   @Column({ type: 'boolean', default: true })
   active: boolean;
+
+  /** How volumes are shown to this person; data stay in litres. */
+  @Column({ type: 'varchar', length: 8, name: 'unit_system', default: 'us' })
+  unitSystem: UnitSystem;
 
   @ManyToMany(() => Site)
   @JoinTable({ name: 'user_site', joinColumn: { name: 'user_id' }, inverseJoinColumn: { name: 'site_id' } })

@@ -1,0 +1,31 @@
+import { z } from 'zod';
+import { uuid } from './fields.js';
+import { PageQuery } from './paging.js';
+
+export const followUpStatuses = ['open', 'done', 'done-late'] as const;
+export type FollowUpStatus = (typeof followUpStatuses)[number];
+
+export const FollowUpQuery = PageQuery.extend({
+  siteId: uuid.optional(),
+  status: z.enum(followUpStatuses).optional(),
+});
+export type FollowUpQuery = z.output<typeof FollowUpQuery>;
+
+/** Closed with a note (and, as multipart, optionally a file: the notice sent, a lab report). */
+export const CloseFollowUpRequest = z.object({ note: z.string().trim().min(3, 'Say how it was closed').max(2000) });
+export type CloseFollowUpRequest = z.output<typeof CloseFollowUpRequest>;
+
+/** Anything with a deadline, opened by the server's rules. */
+export interface FollowUpView {
+  id: string;
+  siteId: string;
+  kind: string;
+  sourceEntity: string;
+  sourceId: string;
+  title: string;
+  dueAt: string;
+  status: FollowUpStatus;
+  closedAt: string | null;
+  closingNote: string | null;
+  hasClosingFile: boolean;
+}

@@ -1,0 +1,49 @@
+import type { DataSource } from 'typeorm';
+import type { CreateEquipmentRequest, EquipmentView, UpdateEquipmentRequest } from '../../contracts/oil.js';
+import type { CurrentUser } from '../../auth/current-user.js';
+import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
+import { uniquely } from '../../db/rows.js';
+import { siteToday } from '../../kernel/site-today.js';
+import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
+import { equipmentTarget as target, findEquipment, findEquipmentSiteId } from './equipment.repository.js';
+
+const duplicate = 'This site already has equipment with this name';
+
+/** Skimmers, separators and sumps. Retired (inactive), never deleted while records refer to them. */
+export class EquipmentService {
+  constructor(private readonly dataSource: DataSource) {}
+
+  async list(user: CurrentUser, siteId: string): Promise<EquipmentView[]> {
+    assertSiteAllowed(user, siteId);
+    return findEquipment(this.dataSource, { siteIds: [siteId] }, await siteToday(this.dataSource, siteId));
+  }
+
+  async get(user: CurrentUser, id: string): Promise<EquipmentView> {
+    const siteId = await findEquipmentSiteId(this.dataSource, id);
+    assertSiteVisible(user, siteId, 'Equipment');
+    const [view] = await findEquipment(this.dataSource, { siteIds: [siteId!], id }, await siteToday(this.dataSource, siteId!));
+    return view!;
+  }
+
+  create(user: CurrentUser, request: CreateEquipmentRequest) {
+    assertSiteAllowed(user, request.siteId);
+    return uniquely(() => createTraced(this.dataSource, user, target, request), 'name', duplicate);
+  }
+
+  update(user: CurrentUser, id: string, request: UpdateEquipmentRequest) {
+    return uniquely(
+      () =>
+        updateTraced(this.dataSource, user, target, id, request, async (_m, before) =>
+          assertSiteVisible(user, before.siteId as string, 'Equipment'),
+        ),
+      'name',
+      duplicate,
+    );
+  }
+
+  async remove(user: CurrentUser, id: string): Promise<void> {
+    await deleteTraced(this.dataSource, user, target, id, async (_m, before) =>
+      assertSiteVisible(user, before.siteId as string, 'Equipment'),
+    );
+  }
+}

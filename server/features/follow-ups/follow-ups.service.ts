@@ -1,0 +1,42 @@
+import type { Response } from 'express';
+import type { DataSource } from 'typeorm';
+import type { CloseFollowUpRequest, FollowUpQuery, FollowUpView } from '../../contracts/follow-ups.js';
+import type { CurrentUser } from '../../auth/current-user.js';
+import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
+import { conflict, notFound } from '../../errors/app-error.js';
+import { checkUpload, sendStoredFile, storeFile } from '../../kernel/files/stored-files.js';
+import { recordTrail } from '../../kernel/trail/trail.js';
+import { closeFollowUp, findFollowUpFile, lockFollowUp, pageFollowUps } from './follow-ups.repository.js';
+
+const evidenceTypes = ['application/pdf', 'image/jpeg', 'image/png', 'image/webp'];
+
+/** Follow-ups are opened by the server's rules; people close them, with a note, in the trail. */
+export class FollowUpsService {
+  constructor(private readonly dataSource: DataSource) {}
+
+  list(user: CurrentUser, query: FollowUpQuery) {
+    if (query.siteId) assertSiteAllowed(user, query.siteId);
+    return pageFollowUps(this.dataSource, query.siteId ? [query.siteId] : user.siteIds, query);
+  }
+
+  async close(user: CurrentUser, id: string, request: CloseFollowUpRequest, file: Express.Multer.File | undefined): Promise<FollowUpView> {
+    const checkedFile = file ? await checkUpload(file, evidenceTypes) : null;
+    return this.dataSource.transaction(async (manager) => {
+      const locked = await lockFollowUp(manager, id);
+      assertSiteVisible(user, locked?.siteId, 'Follow-up');
+      const { closingFileId: _closingFileId, ...before } = locked!;
+      if (before.status !== 'open') throw conflict('This follow-up is already closed');
+      const stored = checkedFile ? await storeFile(manager, file!, checkedFile.mediaType, user.id) : null;
+      const after = await closeFollowUp(manager, id, { note: request.note, ownerId: user.id, fileId: stored?.id ?? null });
+      await recordTrail(manager, user, { action: 'close', entity: 'follow-up', entityId: id, siteId: after.siteId, before, after });
+      return after;
+    });
+  }
+
+  async sendFile(user: CurrentUser, id: string, res: Response): Promise<void> {
+    const followUp = await findFollowUpFile(this.dataSource, id);
+    assertSiteVisible(user, followUp?.siteId, 'Follow-up');
+    if (!followUp!.closingFileId) throw notFound('File');
+    await sendStoredFile(this.dataSource.manager, followUp!.closingFileId, res, true);
+  }
+}

@@ -1,0 +1,149 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { CreateLimitRequest, CreatePermitRequest, UpdateLimitRequest, UpdatePermitRequest } from '../../contracts/setup.js';
+import type { CurrentUser } from '../../auth/current-user.js';
+import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
+import { uniquely, type Row } from '../../db/rows.js';
+import { convert, isMassRate, units } from '../../domain/units.js';
+import { invalid, notFound } from '../../errors/app-error.js';
+import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
+import { recheckResultsAtPoint } from '../lab/lab-flags.service.js';
+import { ensurePeriods } from '../periods/periods.service.js';
+import {
+  findLimits,
+  findParameterRow,
+  findPermitRow,
+  findPermits,
+  findPointRow,
+  limitedPointIds,
+  limitTarget,
+  permitTarget,
+} from './permits.repository.js';
+
+const duplicateLimit = 'This permit already has this statistic for this point and parameter';
+
+/** Permits of a site and their limits; a change re-checks the lab results the limits judge. */
+export class PermitsService {
+  constructor(private readonly dataSource: DataSource) {}
+
+  list(user: CurrentUser, siteId: string | undefined) {
+    if (siteId) assertSiteAllowed(user, siteId);
+    return findPermits(this.dataSource, siteId ? [siteId] : user.siteIds);
+  }
+
+  async get(user: CurrentUser, id: string) {
+    return permitTarget.view(await this.visiblePermit(user, id));
+  }
+
+  create(user: CurrentUser, request: CreatePermitRequest) {
+    assertSiteAllowed(user, request.siteId);
+    return uniquely(
+      () =>
+        createTraced(this.dataSource, user, permitTarget, request, {
+          afterWrite: (manager, row) => ensurePeriods(manager, String(row.id)),
+        }),
+      'number',
+      'This site already has a permit with this number',
+    );
+  }
+
+  async update(user: CurrentUser, id: string, request: UpdatePermitRequest) {
+    await this.visiblePermit(user, id);
+    const updated = await updateTraced(this.dataSource, user, permitTarget, id, request, async (_m, before) => {
+      const from = request.effectiveFrom ?? before.effectiveFrom;
+      const to = request.effectiveTo === undefined ? before.effectiveTo : request.effectiveTo;
+      if (to && from && to < from) throw invalid({ effectiveTo: 'Ends before it starts' });
+    });
+    // New dates or a new frequency may add periods; existing ones stay as they were reported.
+    await ensurePeriods(this.dataSource, id);
+    return updated;
+  }
+
+  async remove(user: CurrentUser, id: string): Promise<void> {
+    await this.visiblePermit(user, id);
+    const points = await limitedPointIds(this.dataSource, id);
+    await deleteTraced(this.dataSource, user, permitTarget, id);
+    // Its limits went with it: the flags they raised must go too.
+    await this.dataSource.transaction(async (manager) => {
+      for (const pointId of points) await recheckResultsAtPoint(manager, pointId);
+    });
+  }
+
+  async limits(user: CurrentUser, id: string) {
+    const permit = await this.visiblePermit(user, id);
+    return findLimits(this.dataSource, id, permit.siteId as string);
+  }
+
+  async createLimit(user: CurrentUser, id: string, request: CreateLimitRequest) {
+    const permit = await this.visiblePermit(user, id);
+    return uniquely(
+      () =>
+        createTraced(
+          this.dataSource,
+          user,
+          limitTarget(permit.siteId as string),
+          { ...request, permitId: permit.id },
+          {
+            check: (manager) => checkLimit(manager, permit, request),
+            afterWrite: (manager) => recheckResultsAtPoint(manager, request.dischargePointId),
+          },
+        ),
+      'statistic',
+      duplicateLimit,
+    );
+  }
+
+  async updateLimit(user: CurrentUser, id: string, limitId: string, request: UpdateLimitRequest) {
+    const permit = await this.visiblePermit(user, id);
+    const target = limitTarget(permit.siteId as string);
+    const updated = await uniquely(
+      () =>
+        updateTraced(this.dataSource, user, target, limitId, request, async (manager, before) => {
+          if (before.permitId !== permit.id) throw notFound('Limit');
+          await checkLimit(manager, permit, { ...target.view(before), ...request });
+        }),
+      'statistic',
+      duplicateLimit,
+    );
+    await this.dataSource.transaction((manager) => recheckResultsAtPoint(manager, updated.dischargePointId));
+    return updated;
+  }
+
+  async removeLimit(user: CurrentUser, id: string, limitId: string): Promise<void> {
+    const permit = await this.visiblePermit(user, id);
+    let pointId = '';
+    await deleteTraced(this.dataSource, user, limitTarget(permit.siteId as string), limitId, async (_m, before) => {
+      if (before.permitId !== permit.id) throw notFound('Limit');
+      pointId = before.dischargePointId as string;
+    });
+    await this.dataSource.transaction((manager) => recheckResultsAtPoint(manager, pointId));
+  }
+
+  private async visiblePermit(user: CurrentUser, id: string): Promise<Row> {
+    const permit = await findPermitRow(this.dataSource, id);
+    assertSiteVisible(user, permit?.siteId as string | undefined, 'Permit');
+    return permit!;
+  }
+}
+
+/** A limit's point must be of the permit's site, its parameter known there, its unit comparable. */
+async function checkLimit(
+  manager: EntityManager,
+  permit: Row,
+  limit: { dischargePointId: string; parameterId: string; unit: string; statistic: string },
+): Promise<void> {
+  const point = await findPointRow(manager, limit.dischargePointId);
+  const parameter = await findParameterRow(manager, limit.parameterId);
+  const fields: Record<string, string> = {};
+  if (!point || point.siteId !== permit.siteId) fields.dischargePointId = 'Not a discharge point of this permit’s site';
+  if (!parameter || (parameter.siteId && parameter.siteId !== permit.siteId)) fields.parameterId = 'Not a parameter of this site';
+  else if (isMassRate(limit.unit)) {
+    // A loading is computed from a concentration and the day's flow (40 CFR 122.45(f) mass limits).
+    if (units[parameter.defaultUnit as string]?.dimension !== 'concentration')
+      fields.unit = `${parameter.name as string} is not measured as a concentration, so it has no mass loading`;
+    if (limit.statistic !== 'daily-maximum' && limit.statistic !== 'monthly-average')
+      fields.statistic = 'A mass limit is a daily maximum or a monthly average';
+  } else if (convert(1, limit.unit, parameter.defaultUnit as string) === null) {
+    fields.unit = `Cannot be compared with ${parameter.name as string} (${parameter.defaultUnit as string})`;
+  }
+  if (Object.keys(fields).length > 0) throw invalid(fields);
+}
