@@ -1,7 +1,50 @@
+import { Session } from '../auth/session.entity.js';
+import { DischargePoint } from '../features/discharge-points/discharge-point.entity.js';
+import { Equipment } from '../features/equipment/equipment.entity.js';
+import { FlowReading } from '../features/flow-readings/flow-reading.entity.js';
+import { FollowUp } from '../features/follow-ups/follow-up.entity.js';
+import { LabCertificate } from '../features/lab/lab-certificate.entity.js';
+import { LabResult } from '../features/lab/lab-result.entity.js';
+import { LabSample } from '../features/lab/lab-sample.entity.js';
+import { QcBatch } from '../features/lab/qc-batch.entity.js';
+import { OilLogEntry } from '../features/oil-log/oil-log-entry.entity.js';
+import { Parameter } from '../features/parameters/parameter.entity.js';
+import { ReportingPeriod } from '../features/periods/reporting-period.entity.js';
+import { PermitLimit } from '../features/permits/permit-limit.entity.js';
+import { Permit } from '../features/permits/permit.entity.js';
+import { ShipmentFile } from '../features/shipments/shipment-file.entity.js';
+import { Shipment } from '../features/shipments/shipment.entity.js';
+import { UpkeepCheck } from '../features/upkeep/upkeep-check.entity.js';
+import { StoredFile } from '../kernel/files/stored-file.entity.js';
+import { UserSite } from '../kernel/people/user-site.entity.js';
+import { User } from '../kernel/people/user.entity.js';
 import { Company } from '../kernel/sites/company.entity.js';
 import { Site } from '../kernel/sites/site.entity.js';
 import { TrailEntry } from '../kernel/trail/trail-entry.entity.js';
-import { User } from '../kernel/people/user.entity.js';
 
-/** Every entity, listed explicitly so the DataSource needs no glob that differs between tsx and a build. */
-export const entities = [Company, Site, User, TrailEntry];
+/** Every table's entity, listed explicitly so the DataSource needs no glob that differs between tsx and a build. */
+export const entities = [
+  Company,
+  Site,
+  User,
+  UserSite,
+  Session,
+  TrailEntry,
+  StoredFile,
+  DischargePoint,
+  Parameter,
+  Permit,
+  PermitLimit,
+  LabCertificate,
+  QcBatch,
+  LabSample,
+  LabResult,
+  Equipment,
+  OilLogEntry,
+  UpkeepCheck,
+  Shipment,
+  ShipmentFile,
+  FollowUp,
+  FlowReading,
+  ReportingPeriod,
+];

@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { Company } from '../../kernel/sites/company.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
+import { UserSite } from '../../kernel/people/user-site.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
 import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
 import { seedLab } from './seed-lab.js';
@@ -27,8 +28,11 @@ export async function seedDemo(dataSource: DataSource): Promise<void> {
     for (const person of demoPeople) {
       const existing = await manager.findOneBy(User, { email: person.email });
       if (existing) continue;
-      const sites = person.sites.map((key) => sitesByKey.get(key)!);
-      await manager.save(User, manager.create(User, { email: person.email, name: person.name, role: person.role, sites }));
+      const user = await manager.save(User, manager.create(User, { email: person.email, name: person.name, role: person.role }));
+      await manager.insert(
+        UserSite,
+        person.sites.map((key) => ({ userId: user.id, siteId: sitesByKey.get(key)!.id })),
+      );
     }
 
     const north = sitesByKey.get('north')!;

@@ -1,8 +1,13 @@
-import { Column, CreateDateColumn, Entity, JoinTable, ManyToMany, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { Check, Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { Role } from '../../contracts/permissions.js';
 import type { UnitSystem } from '../../contracts/users.js';
-import { Site } from '../sites/site.entity.js';
 
+@Check('app_user_email_check', `((email)::text = lower((email)::text))`)
+@Check(
+  'app_user_role_check',
+  `((role)::text = ANY ((ARRAY['administrator'::character varying, 'coordinator'::character varying, 'operator'::character varying, 'auditor'::character varying])::text[]))`,
+)
+@Check('app_user_unit_system_check', `((unit_system)::text = ANY ((ARRAY['us'::character varying, 'metric'::character varying])::text[]))`)
 @Entity('app_user')
 export class User {
   @PrimaryGeneratedColumn('uuid')
@@ -16,7 +21,7 @@ export class User {
   name: string;
 
   /** `iss sub` of the identity provider, set at first sign-in. */
-  @Column({ type: 'varchar', length: 512, unique: true, nullable: true })
+  @Column({ type: 'varchar', length: 512, nullable: true, unique: true })
   subject: string | null;
 
   /** Null until an administrator grants a role: such a user can sign in but sees nothing. */
@@ -26,14 +31,6 @@ export class User {
   @Column({ type: 'boolean', default: true })
   active: boolean;
 
-  /** How volumes are shown to this person; data stay in litres. */
-  @Column({ type: 'varchar', length: 8, name: 'unit_system', default: 'us' })
-  unitSystem: UnitSystem;
-
-  @ManyToMany(() => Site)
-  @JoinTable({ name: 'user_site', joinColumn: { name: 'user_id' }, inverseJoinColumn: { name: 'site_id' } })
-  sites?: Site[];
-
   @Column({ type: 'timestamptz', name: 'last_sign_in_at', nullable: true })
   lastSignInAt: Date | null;
 
@@ -42,4 +39,8 @@ export class User {
 
   @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' })
   updatedAt: Date;
+
+  /** How volumes are shown to this person; data stay in litres. */
+  @Column({ type: 'varchar', name: 'unit_system', length: 8, default: 'us' })
+  unitSystem: UnitSystem;
 }

@@ -1,5 +1,7 @@
-import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm';
+import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 
+@Index('IDX_trail_entry_entity', ['entity', 'entityId'])
+@Index('IDX_trail_entry_site_time', ['siteId', 'occurredAt'])
 /** Append-only: triggers in the database refuse UPDATE, DELETE and TRUNCATE on this table. */
 @Entity('trail_entry')
 export class TrailEntry {
@@ -12,7 +14,7 @@ export class TrailEntry {
   @Column({ type: 'uuid', name: 'actor_id', nullable: true })
   actorId: string | null;
 
-  @Column({ type: 'varchar', length: 254, name: 'actor_email', nullable: true })
+  @Column({ type: 'varchar', name: 'actor_email', length: 254, nullable: true })
   actorEmail: string | null;
 
   @Column({ type: 'varchar', length: 40 })
@@ -21,7 +23,7 @@ export class TrailEntry {
   @Column({ type: 'varchar', length: 60 })
   entity: string;
 
-  @Column({ type: 'varchar', length: 64, name: 'entity_id' })
+  @Column({ type: 'varchar', name: 'entity_id', length: 64 })
   entityId: string;
 
   @Column({ type: 'uuid', name: 'site_id', nullable: true })

@@ -1,0 +1,78 @@
+import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
+import { Site } from '../../kernel/sites/site.entity.js';
+
+@Check('permit_kind_check', `((kind)::text = ANY ((ARRAY['pretreatment'::character varying, 'npdes'::character varying])::text[]))`)
+@Check(
+  'permit_reporting_frequency_check',
+  `((reporting_frequency)::text = ANY ((ARRAY['monthly'::character varying, 'quarterly'::character varying, 'semiannual'::character varying])::text[]))`,
+)
+@Check('permit_report_due_days_check', `((report_due_days >= 0) AND (report_due_days <= 365))`)
+@Check(
+  'permit_non_detect_policy_check',
+  `((non_detect_policy)::text = ANY ((ARRAY['zero'::character varying, 'mdl'::character varying, 'ml'::character varying, 'half-mdl'::character varying])::text[]))`,
+)
+@Check('permit_mass_loading_factor_check', `(mass_loading_factor = ANY (ARRAY[8.34, 8.3454]))`)
+@Check(
+  'permit_snc_window_check',
+  `((snc_window)::text = ANY ((ARRAY['calendar-halves'::character varying, 'rolling'::character varying])::text[]))`,
+)
+@Check('permit_late_report_days_check', `((late_report_days >= 1) AND (late_report_days <= 365))`)
+@Check('permit_check', `((effective_to IS NULL) OR (effective_to >= effective_from))`)
+@Unique('permit_site_id_number_key', ['siteId', 'number'])
+@Entity('permit')
+export class Permit {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ type: 'uuid', name: 'site_id' })
+  siteId: string;
+
+  @ManyToOne(() => Site, { onDelete: 'RESTRICT' })
+  @JoinColumn({ name: 'site_id', foreignKeyConstraintName: 'permit_site_id_fkey' })
+  site?: Site;
+
+  @Column({ type: 'varchar', length: 20 })
+  kind: string;
+
+  @Column({ type: 'varchar', length: 60 })
+  number: string;
+
+  @Column({ type: 'varchar', name: 'issuing_authority', length: 200 })
+  issuingAuthority: string;
+
+  @Column({ type: 'varchar', name: 'authority_email', length: 254, nullable: true })
+  authorityEmail: string | null;
+
+  @Column({ type: 'date', name: 'effective_from' })
+  effectiveFrom: string;
+
+  @Column({ type: 'date', name: 'effective_to', nullable: true })
+  effectiveTo: string | null;
+
+  @Column({ type: 'varchar', name: 'reporting_frequency', length: 12 })
+  reportingFrequency: string;
+
+  @Column({ type: 'smallint', name: 'report_due_days' })
+  reportDueDays: number;
+
+  @Column({ type: 'varchar', name: 'non_detect_policy', length: 10 })
+  nonDetectPolicy: string;
+
+  @Column({ type: 'boolean', name: 'daily_max_applies_to_each_grab', default: false })
+  dailyMaxAppliesToEachGrab: boolean;
+
+  @Column({ type: 'numeric', name: 'mass_loading_factor', precision: 6, scale: 4 })
+  massLoadingFactor: string;
+
+  @Column({ type: 'varchar', name: 'snc_window', length: 16 })
+  sncWindow: string;
+
+  @Column({ type: 'smallint', name: 'late_report_days', default: 45 })
+  lateReportDays: number;
+
+  @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
+  createdAt: Date;
+
+  @UpdateDateColumn({ type: 'timestamptz', name: 'updated_at' })
+  updatedAt: Date;
+}
