@@ -14,7 +14,7 @@ export const demoSites = [
     timeZone: 'America/Chicago',
     retentionYears: 5,
     generatorStatus: 'large',
-    oilStorageCapacityGallons: '1650',
+    oilStorageCapacityGallons: 1650,
   },
   {
     key: 'east',
@@ -23,7 +23,7 @@ export const demoSites = [
     timeZone: 'America/Chicago',
     retentionYears: 5,
     generatorStatus: 'small',
-    oilStorageCapacityGallons: '880',
+    oilStorageCapacityGallons: 880,
   },
 ] as const;
 

@@ -25,7 +25,7 @@ export class DischargePoint {
   name: string;
 
   @Column({ type: 'varchar', length: 20 })
-  receiving: string;
+  receiving: 'sewer' | 'surface-water';
 
   @Column({ type: 'boolean', default: true })
   active: boolean;

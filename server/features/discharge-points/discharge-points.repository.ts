@@ -1,23 +1,24 @@
 import type { DataSource } from 'typeorm';
-import type { DischargePoint } from '../../contracts/setup.js';
-import { camelRow, type Row } from '../../db/rows.js';
+import type { DischargePoint as DischargePointView } from '../../contracts/setup.js';
+import type { Target } from '../../kernel/trail/traced-writes.js';
+import { DischargePoint } from './discharge-point.entity.js';
 
-/** How a discharge point row is written and shown (for the traced writes). */
+/** How a discharge point is written and shown (for the traced writes). */
 export const dischargePointTarget = {
-  table: 'discharge_point',
+  entityClass: DischargePoint,
   entity: 'discharge-point',
-  view: (row: Row): DischargePoint => ({
-    id: row.id as string,
-    siteId: row.siteId as string,
-    code: row.code as string,
-    name: row.name as string,
-    receiving: row.receiving as DischargePoint['receiving'],
-    active: row.active as boolean,
+  view: (row: DischargePoint): DischargePointView => ({
+    id: row.id,
+    siteId: row.siteId,
+    code: row.code,
+    name: row.name,
+    receiving: row.receiving,
+    active: row.active,
   }),
-  siteIdOf: (row: Row) => row.siteId as string,
-};
+  siteIdOf: (row: DischargePoint) => row.siteId,
+} satisfies Target<DischargePoint, DischargePointView>;
 
-export async function findDischargePoints(dataSource: DataSource, siteId: string): Promise<DischargePoint[]> {
-  const rows: Row[] = await dataSource.query('SELECT * FROM discharge_point WHERE site_id = $1 ORDER BY code', [siteId]);
-  return rows.map((row) => dischargePointTarget.view(camelRow(row)));
+export async function findDischargePoints(dataSource: DataSource, siteId: string): Promise<DischargePointView[]> {
+  const rows = await dataSource.manager.find(DischargePoint, { where: { siteId }, order: { code: 'ASC' } });
+  return rows.map(dischargePointTarget.view);
 }

@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 
 @Check(
@@ -31,8 +32,8 @@ export class Equipment {
   @Column({ type: 'varchar', length: 200, default: '' })
   serves: string;
 
-  @Column({ type: 'numeric', name: 'rated_capacity', precision: 10, scale: 2 })
-  ratedCapacity: string;
+  @Column({ type: 'numeric', name: 'rated_capacity', precision: 10, scale: 2, transformer: numeric })
+  ratedCapacity: number;
 
   @Column({ type: 'varchar', name: 'rated_unit', length: 8 })
   ratedUnit: string;
@@ -43,8 +44,8 @@ export class Equipment {
   @Column({ type: 'smallint', name: 'upkeep_interval_days' })
   upkeepIntervalDays: number;
 
-  @Column({ type: 'numeric', name: 'specific_gravity', precision: 4, scale: 3, default: () => '0.88' })
-  specificGravity: string;
+  @Column({ type: 'numeric', name: 'specific_gravity', precision: 4, scale: 3, default: () => '0.88', transformer: numeric })
+  specificGravity: number;
 
   @Column({ type: 'boolean', default: true })
   active: boolean;

@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
-import { DataSource, type EntityManager } from 'typeorm';
-import { selectRow, type Row } from '../../db/rows.js';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { Target } from '../../kernel/trail/traced-writes.js';
+import { Equipment } from './equipment.entity.js';
 import type { EquipmentView } from '../../contracts/oil.js';
 import { likelyUndersized, ratingLitresPerHour } from '../../domain/oil-collection.js';
 
@@ -51,13 +52,12 @@ export async function findEquipment(db: Db, where: { siteIds: string[]; id?: str
 
 /** How an equipment row is written and shown by the traced writes. */
 export const equipmentTarget = {
-  table: 'equipment',
+  entityClass: Equipment,
   entity: 'equipment',
-  view: (row: Row) => ({ ...row, ratedCapacity: Number(row.ratedCapacity), specificGravity: Number(row.specificGravity) }),
-  siteIdOf: (row: Row) => row.siteId as string,
-};
+  view: ({ site: _site, ...row }: Equipment) => row,
+  siteIdOf: (row: Equipment) => row.siteId,
+} satisfies Target<Equipment, unknown>;
 
 export async function findEquipmentSiteId(db: Db, id: string): Promise<string | undefined> {
-  const row = await selectRow(db instanceof DataSource ? db.manager : db, 'equipment', id);
-  return row?.siteId as string | undefined;
+  return (await db.getRepository(Equipment).findOne({ where: { id }, select: { siteId: true } }))?.siteId;
 }

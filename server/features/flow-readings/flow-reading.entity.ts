@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
 
@@ -23,8 +24,8 @@ export class FlowReading {
   @Column({ type: 'date' })
   day: string;
 
-  @Column({ type: 'numeric', precision: 14, scale: 4 })
-  value: string;
+  @Column({ type: 'numeric', precision: 14, scale: 4, transformer: numeric })
+  value: number;
 
   @Column({ type: 'varchar', length: 10 })
   unit: string;

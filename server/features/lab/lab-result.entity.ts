@@ -1,4 +1,5 @@
 import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { LabSample } from './lab-sample.entity.js';
 import { Parameter } from '../parameters/parameter.entity.js';
 import { QcBatch } from './qc-batch.entity.js';
@@ -37,14 +38,14 @@ export class LabResult {
   @Column({ type: 'varchar', name: 'value_reported', length: 32 })
   valueReported: string;
 
-  @Column({ type: 'numeric', precision: 18, scale: 6 })
-  value: string;
+  @Column({ type: 'numeric', precision: 18, scale: 6, transformer: numeric })
+  value: number;
 
-  @Column({ type: 'numeric', precision: 12, scale: 4, nullable: true })
-  mdl: string | null;
+  @Column({ type: 'numeric', precision: 12, scale: 4, nullable: true, transformer: numeric })
+  mdl: number | null;
 
-  @Column({ type: 'numeric', precision: 12, scale: 4, nullable: true })
-  ml: string | null;
+  @Column({ type: 'numeric', precision: 12, scale: 4, nullable: true, transformer: numeric })
+  ml: number | null;
 
   @Column({ type: 'varchar', length: 20 })
   unit: string;

@@ -1,4 +1,5 @@
 import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { LabCertificate } from './lab-certificate.entity.js';
 
@@ -42,8 +43,8 @@ export class LabSample {
   @Column({ type: 'boolean', name: 'preservation_confirmed' })
   preservationConfirmed: boolean;
 
-  @Column({ type: 'numeric', name: 'temperature_on_receipt_c', precision: 5, scale: 1, nullable: true })
-  temperatureOnReceiptC: string | null;
+  @Column({ type: 'numeric', name: 'temperature_on_receipt_c', precision: 5, scale: 1, nullable: true, transformer: numeric })
+  temperatureOnReceiptC: number | null;
 
   @Column({ type: 'varchar', name: 'chain_of_custody_number', length: 60, nullable: true })
   chainOfCustodyNumber: string | null;

@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -33,20 +34,20 @@ export class OilLogEntry {
   @Column({ type: 'date', name: 'collected_on' })
   collectedOn: string;
 
-  @Column({ type: 'numeric', name: 'volume_litres', precision: 14, scale: 6 })
-  volumeLitres: string;
+  @Column({ type: 'numeric', name: 'volume_litres', precision: 14, scale: 6, transformer: numeric })
+  volumeLitres: number;
 
-  @Column({ type: 'numeric', name: 'entered_volume', precision: 12, scale: 3 })
-  enteredVolume: string;
+  @Column({ type: 'numeric', name: 'entered_volume', precision: 12, scale: 3, transformer: numeric })
+  enteredVolume: number;
 
   @Column({ type: 'varchar', name: 'entered_unit', length: 4 })
   enteredUnit: string;
 
-  @Column({ type: 'numeric', name: 'hours_run', precision: 4, scale: 1, nullable: true })
-  hoursRun: string | null;
+  @Column({ type: 'numeric', name: 'hours_run', precision: 4, scale: 1, nullable: true, transformer: numeric })
+  hoursRun: number | null;
 
-  @Column({ type: 'numeric', name: 'water_temperature_c', precision: 4, scale: 1, nullable: true })
-  waterTemperatureC: string | null;
+  @Column({ type: 'numeric', name: 'water_temperature_c', precision: 4, scale: 1, nullable: true, transformer: numeric })
+  waterTemperatureC: number | null;
 
   @Column({ type: 'text', array: true, default: '{}' })
   observations: string[];

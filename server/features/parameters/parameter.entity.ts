@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 
 @Check('parameter_fraction_check', `((fraction)::text = ANY ((ARRAY['HEM'::character varying, 'SGT-HEM'::character varying])::text[]))`)
@@ -23,13 +24,13 @@ export class Parameter {
   name: string;
 
   @Column({ type: 'varchar', length: 10, nullable: true })
-  fraction: string | null;
+  fraction: 'HEM' | 'SGT-HEM' | null;
 
   @Column({ type: 'varchar', name: 'default_unit', length: 20 })
   defaultUnit: string;
 
-  @Column({ type: 'numeric', name: 'snc_review_factor', precision: 4, scale: 2, nullable: true })
-  sncReviewFactor: string | null;
+  @Column({ type: 'numeric', name: 'snc_review_factor', precision: 4, scale: 2, nullable: true, transformer: numeric })
+  sncReviewFactor: number | null;
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;

@@ -1,31 +1,33 @@
-import type { DataSource } from 'typeorm';
-import type { Parameter } from '../../contracts/setup.js';
-import { camelRow, type Row } from '../../db/rows.js';
+import { Brackets, type DataSource } from 'typeorm';
+import type { Parameter as ParameterContract } from '../../contracts/setup.js';
+import type { Target } from '../../kernel/trail/traced-writes.js';
+import { Parameter } from './parameter.entity.js';
 
-export type ParameterView = Parameter & { siteId: string | null };
+export type ParameterView = ParameterContract & { siteId: string | null };
 
-/** How a parameter row is written and shown (for the traced writes). */
+/** How a parameter is written and shown (for the traced writes). */
 export const parameterTarget = {
-  table: 'parameter',
+  entityClass: Parameter,
   entity: 'parameter',
-  view: (row: Row): ParameterView => ({
-    id: row.id as string,
-    siteId: (row.siteId as string | null) ?? null,
-    code: row.code as string,
-    name: row.name as string,
-    fraction: (row.fraction as 'HEM' | 'SGT-HEM' | null) ?? null,
-    defaultUnit: row.defaultUnit as string,
+  view: (row: Parameter): ParameterView => ({
+    id: row.id,
+    siteId: row.siteId,
+    code: row.code,
+    name: row.name,
+    fraction: row.fraction,
+    defaultUnit: row.defaultUnit,
     sncReviewFactor: row.sncReviewFactor === null ? null : Number(row.sncReviewFactor),
   }),
-  siteIdOf: (row: Row) => (row.siteId as string | null) ?? null,
-};
+  siteIdOf: (row: Parameter) => row.siteId,
+} satisfies Target<Parameter, ParameterView>;
 
 /** The shared catalogue plus the sites' own entries, narrowed to one site when asked. */
 export async function findParameters(dataSource: DataSource, siteIds: string[], onlySiteId: string | null): Promise<ParameterView[]> {
-  const rows: Row[] = await dataSource.query(
-    `SELECT * FROM parameter WHERE (site_id IS NULL OR site_id = ANY($1::uuid[])) AND ($2::uuid IS NULL OR site_id IS NULL OR site_id = $2)
-      ORDER BY site_id NULLS FIRST, name`,
-    [siteIds, onlySiteId],
-  );
-  return rows.map((row) => parameterTarget.view(camelRow(row)));
+  const query = dataSource.manager
+    .createQueryBuilder(Parameter, 'parameter')
+    .where(new Brackets((where) => where.where('parameter.siteId IS NULL').orWhere('parameter.siteId = ANY(:siteIds)', { siteIds })))
+    .orderBy('parameter.siteId', 'ASC', 'NULLS FIRST')
+    .addOrderBy('parameter.name', 'ASC');
+  if (onlySiteId) query.andWhere('(parameter.siteId IS NULL OR parameter.siteId = :onlySiteId)', { onlySiteId });
+  return (await query.getMany()).map(parameterTarget.view);
 }

@@ -2,7 +2,8 @@ import type { DataSource } from 'typeorm';
 import type { CreateParameterRequest, UpdateParameterRequest } from '../../contracts/setup.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed } from '../../auth/site-access.js';
-import { uniquely, type Row } from '../../db/rows.js';
+import { uniquely } from '../../db/rows.js';
+import type { Parameter } from './parameter.entity.js';
 import { forbidden } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
 import { findParameters, parameterTarget, type ParameterView } from './parameters.repository.js';
@@ -37,7 +38,7 @@ export class ParametersService {
   }
 }
 
-function assertOwnSiteEntry(user: CurrentUser, before: Row): void {
+function assertOwnSiteEntry(user: CurrentUser, before: Parameter): void {
   if (!before.siteId) throw forbidden('The shared catalogue cannot be changed here');
-  assertSiteAllowed(user, before.siteId as string);
+  assertSiteAllowed(user, before.siteId);
 }

@@ -1,4 +1,6 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import type { Limit } from '../../contracts/setup.js';
+import { numeric } from '../../db/numeric-transformer.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { Parameter } from '../parameters/parameter.entity.js';
 import { Permit } from './permit.entity.js';
@@ -47,22 +49,22 @@ export class PermitLimit {
   parameter?: Parameter;
 
   @Column({ type: 'varchar', length: 24 })
-  statistic: string;
+  statistic: Limit['statistic'];
 
-  @Column({ type: 'numeric', precision: 14, scale: 4 })
-  value: string;
+  @Column({ type: 'numeric', precision: 14, scale: 4, transformer: numeric })
+  value: number;
 
   @Column({ type: 'varchar', length: 20 })
-  unit: string;
+  unit: Limit['unit'];
 
   @Column({ type: 'smallint', name: 'frequency_count' })
   frequencyCount: number;
 
   @Column({ type: 'varchar', name: 'frequency_per', length: 8 })
-  frequencyPer: string;
+  frequencyPer: Limit['frequencyPer'];
 
   @Column({ type: 'varchar', name: 'sample_type', length: 10 })
-  sampleType: string;
+  sampleType: Limit['sampleType'];
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;

@@ -1,4 +1,6 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
+import type { Permit as PermitView } from '../../contracts/setup.js';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 
 @Check('permit_kind_check', `((kind)::text = ANY ((ARRAY['pretreatment'::character varying, 'npdes'::character varying])::text[]))`)
@@ -32,7 +34,7 @@ export class Permit {
   site?: Site;
 
   @Column({ type: 'varchar', length: 20 })
-  kind: string;
+  kind: PermitView['kind'];
 
   @Column({ type: 'varchar', length: 60 })
   number: string;
@@ -50,22 +52,22 @@ export class Permit {
   effectiveTo: string | null;
 
   @Column({ type: 'varchar', name: 'reporting_frequency', length: 12 })
-  reportingFrequency: string;
+  reportingFrequency: PermitView['reportingFrequency'];
 
   @Column({ type: 'smallint', name: 'report_due_days' })
   reportDueDays: number;
 
   @Column({ type: 'varchar', name: 'non_detect_policy', length: 10 })
-  nonDetectPolicy: string;
+  nonDetectPolicy: PermitView['nonDetectPolicy'];
 
   @Column({ type: 'boolean', name: 'daily_max_applies_to_each_grab', default: false })
   dailyMaxAppliesToEachGrab: boolean;
 
-  @Column({ type: 'numeric', name: 'mass_loading_factor', precision: 6, scale: 4 })
-  massLoadingFactor: string;
+  @Column({ type: 'numeric', name: 'mass_loading_factor', precision: 6, scale: 4, transformer: numeric })
+  massLoadingFactor: number;
 
   @Column({ type: 'varchar', name: 'snc_window', length: 16 })
-  sncWindow: string;
+  sncWindow: PermitView['sncWindow'];
 
   @Column({ type: 'smallint', name: 'late_report_days', default: 45 })
   lateReportDays: number;

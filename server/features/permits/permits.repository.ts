@@ -1,78 +1,93 @@
-import { DataSource, type EntityManager } from 'typeorm';
-import { camelRow, selectRow, type Row } from '../../db/rows.js';
+import type { DataSource, EntityManager } from 'typeorm';
+import type { Limit, Permit as PermitView } from '../../contracts/setup.js';
+import type { Target } from '../../kernel/trail/traced-writes.js';
+import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
+import { Parameter } from '../parameters/parameter.entity.js';
+import { PermitLimit } from './permit-limit.entity.js';
+import { Permit } from './permit.entity.js';
 
-const isoDay = (value: unknown) => (value instanceof Date ? value.toISOString().slice(0, 10) : (value as string | null));
+type Db = DataSource | EntityManager;
+export type LimitView = Limit & { id: string; permitId: string };
 
 export const permitTarget = {
-  table: 'permit',
+  entityClass: Permit,
   entity: 'permit',
-  view: (row: Row) => ({
-    id: row.id as string,
-    siteId: row.siteId as string,
-    kind: row.kind as 'pretreatment' | 'npdes',
-    number: row.number as string,
-    issuingAuthority: row.issuingAuthority as string,
-    authorityEmail: (row.authorityEmail as string | null) ?? null,
-    effectiveFrom: isoDay(row.effectiveFrom)!,
-    effectiveTo: isoDay(row.effectiveTo) ?? null,
-    reportingFrequency: row.reportingFrequency as string,
-    reportDueDays: Number(row.reportDueDays),
-    nonDetectPolicy: row.nonDetectPolicy as string,
-    dailyMaxAppliesToEachGrab: row.dailyMaxAppliesToEachGrab as boolean,
-    massLoadingFactor: Number(row.massLoadingFactor),
-    sncWindow: row.sncWindow as string,
-    lateReportDays: Number(row.lateReportDays),
+  view: (row: Permit): PermitView & { siteId: string } => ({
+    id: row.id,
+    siteId: row.siteId,
+    kind: row.kind,
+    number: row.number,
+    issuingAuthority: row.issuingAuthority,
+    authorityEmail: row.authorityEmail,
+    effectiveFrom: row.effectiveFrom,
+    effectiveTo: row.effectiveTo,
+    reportingFrequency: row.reportingFrequency,
+    reportDueDays: row.reportDueDays,
+    nonDetectPolicy: row.nonDetectPolicy,
+    dailyMaxAppliesToEachGrab: row.dailyMaxAppliesToEachGrab,
+    massLoadingFactor: row.massLoadingFactor as PermitView['massLoadingFactor'],
+    sncWindow: row.sncWindow,
+    lateReportDays: row.lateReportDays,
   }),
-  siteIdOf: (row: Row) => row.siteId as string,
-};
+  siteIdOf: (row: Permit) => row.siteId,
+} satisfies Target<Permit, unknown>;
 
-export const limitTarget = (siteId: string) => ({
-  table: 'permit_limit',
-  entity: 'limit',
-  view: (row: Row) => ({
-    id: row.id as string,
-    permitId: row.permitId as string,
-    dischargePointId: row.dischargePointId as string,
-    parameterId: row.parameterId as string,
-    statistic: row.statistic as string,
-    value: Number(row.value),
-    unit: row.unit as string,
-    frequencyCount: Number(row.frequencyCount),
-    frequencyPer: row.frequencyPer as string,
-    sampleType: row.sampleType as string,
-    reportedDecimals: row.reportedDecimals === null || row.reportedDecimals === undefined ? null : Number(row.reportedDecimals),
-  }),
-  siteIdOf: () => siteId,
-});
+/** A limit belongs to a permit; its trail entries carry the permit's site. */
+export const limitTarget = (siteId: string) =>
+  ({
+    entityClass: PermitLimit,
+    entity: 'limit',
+    view: (row: PermitLimit): LimitView => ({
+      id: row.id,
+      permitId: row.permitId,
+      dischargePointId: row.dischargePointId,
+      parameterId: row.parameterId,
+      statistic: row.statistic,
+      value: row.value,
+      unit: row.unit,
+      frequencyCount: row.frequencyCount,
+      frequencyPer: row.frequencyPer,
+      sampleType: row.sampleType,
+      reportedDecimals: row.reportedDecimals,
+    }),
+    siteIdOf: () => siteId,
+  }) satisfies Target<PermitLimit, LimitView>;
 
-export async function findPermits(dataSource: DataSource, siteIds: string[]) {
-  const rows: Row[] = await dataSource.query('SELECT * FROM permit WHERE site_id = ANY($1::uuid[]) ORDER BY effective_from DESC', [
-    siteIds,
-  ]);
-  return rows.map((row) => permitTarget.view(camelRow(row)));
+export async function findPermits(db: Db, siteIds: string[]) {
+  const rows = await db
+    .getRepository(Permit)
+    .createQueryBuilder('permit')
+    .where('permit.siteId = ANY(:siteIds)', { siteIds })
+    .orderBy('permit.effectiveFrom', 'DESC')
+    .getMany();
+  return rows.map(permitTarget.view);
 }
 
-export async function findPermitRow(db: DataSource | EntityManager, id: string): Promise<Row | null> {
-  return selectRow(db instanceof DataSource ? db.manager : db, 'permit', id);
-}
+export const findPermit = (db: Db, id: string) => db.getRepository(Permit).findOneBy({ id });
 
-export async function findLimits(dataSource: DataSource, permitId: string, siteId: string) {
-  const rows: Row[] = await dataSource.query(
-    `SELECT l.* FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id
-      WHERE l.permit_id = $1 ORDER BY d.code, l.parameter_id, l.statistic`,
-    [permitId],
-  );
-  return rows.map((row) => limitTarget(siteId).view(camelRow(row)));
+export async function findLimits(db: Db, permitId: string, siteId: string): Promise<LimitView[]> {
+  const rows = await db
+    .getRepository(PermitLimit)
+    .createQueryBuilder('limit')
+    .innerJoin('limit.dischargePoint', 'point')
+    .where('limit.permitId = :permitId', { permitId })
+    .orderBy('point.code')
+    .addOrderBy('limit.parameterId')
+    .addOrderBy('limit.statistic')
+    .getMany();
+  return rows.map(limitTarget(siteId).view);
 }
 
 /** The discharge points a permit's limits apply to (their lab flags follow the limits). */
-export async function limitedPointIds(dataSource: DataSource, permitId: string): Promise<string[]> {
-  const rows: Array<{ discharge_point_id: string }> = await dataSource.query(
-    'SELECT DISTINCT discharge_point_id FROM permit_limit WHERE permit_id = $1',
-    [permitId],
-  );
-  return rows.map((row) => row.discharge_point_id);
+export async function limitedPointIds(db: Db, permitId: string): Promise<string[]> {
+  const rows = await db
+    .getRepository(PermitLimit)
+    .createQueryBuilder('limit')
+    .select('DISTINCT limit.dischargePointId', 'pointId')
+    .where('limit.permitId = :permitId', { permitId })
+    .getRawMany<{ pointId: string }>();
+  return rows.map((row) => row.pointId);
 }
 
-export const findPointRow = (manager: EntityManager, id: string) => selectRow(manager, 'discharge_point', id);
-export const findParameterRow = (manager: EntityManager, id: string) => selectRow(manager, 'parameter', id);
+export const findPoint = (manager: EntityManager, id: string) => manager.findOneBy(DischargePoint, { id });
+export const findParameter = (manager: EntityManager, id: string) => manager.findOneBy(Parameter, { id });

@@ -2,7 +2,8 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { CreateLimitRequest, CreatePermitRequest, UpdateLimitRequest, UpdatePermitRequest } from '../../contracts/setup.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { uniquely, type Row } from '../../db/rows.js';
+import { uniquely } from '../../db/rows.js';
+import type { Permit } from './permit.entity.js';
 import { convert, isMassRate, units } from '../../domain/units.js';
 import { invalid, notFound } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
@@ -10,10 +11,10 @@ import { recheckResultsAtPoint } from '../lab/lab-flags.service.js';
 import { ensurePeriods } from '../periods/periods.service.js';
 import {
   findLimits,
-  findParameterRow,
-  findPermitRow,
+  findParameter,
+  findPermit,
   findPermits,
-  findPointRow,
+  findPoint,
   limitedPointIds,
   limitTarget,
   permitTarget,
@@ -70,7 +71,7 @@ export class PermitsService {
 
   async limits(user: CurrentUser, id: string) {
     const permit = await this.visiblePermit(user, id);
-    return findLimits(this.dataSource, id, permit.siteId as string);
+    return findLimits(this.dataSource, id, permit.siteId);
   }
 
   async createLimit(user: CurrentUser, id: string, request: CreateLimitRequest) {
@@ -80,7 +81,7 @@ export class PermitsService {
         createTraced(
           this.dataSource,
           user,
-          limitTarget(permit.siteId as string),
+          limitTarget(permit.siteId),
           { ...request, permitId: permit.id },
           {
             check: (manager) => checkLimit(manager, permit, request),
@@ -94,7 +95,7 @@ export class PermitsService {
 
   async updateLimit(user: CurrentUser, id: string, limitId: string, request: UpdateLimitRequest) {
     const permit = await this.visiblePermit(user, id);
-    const target = limitTarget(permit.siteId as string);
+    const target = limitTarget(permit.siteId);
     const updated = await uniquely(
       () =>
         updateTraced(this.dataSource, user, target, limitId, request, async (manager, before) => {
@@ -111,16 +112,16 @@ export class PermitsService {
   async removeLimit(user: CurrentUser, id: string, limitId: string): Promise<void> {
     const permit = await this.visiblePermit(user, id);
     let pointId = '';
-    await deleteTraced(this.dataSource, user, limitTarget(permit.siteId as string), limitId, async (_m, before) => {
+    await deleteTraced(this.dataSource, user, limitTarget(permit.siteId), limitId, async (_m, before) => {
       if (before.permitId !== permit.id) throw notFound('Limit');
-      pointId = before.dischargePointId as string;
+      pointId = before.dischargePointId;
     });
     await this.dataSource.transaction((manager) => recheckResultsAtPoint(manager, pointId));
   }
 
-  private async visiblePermit(user: CurrentUser, id: string): Promise<Row> {
-    const permit = await findPermitRow(this.dataSource, id);
-    assertSiteVisible(user, permit?.siteId as string | undefined, 'Permit');
+  private async visiblePermit(user: CurrentUser, id: string): Promise<Permit> {
+    const permit = await findPermit(this.dataSource, id);
+    assertSiteVisible(user, permit?.siteId, 'Permit');
     return permit!;
   }
 }
@@ -128,22 +129,22 @@ export class PermitsService {
 /** A limit's point must be of the permit's site, its parameter known there, its unit comparable. */
 async function checkLimit(
   manager: EntityManager,
-  permit: Row,
+  permit: Permit,
   limit: { dischargePointId: string; parameterId: string; unit: string; statistic: string },
 ): Promise<void> {
-  const point = await findPointRow(manager, limit.dischargePointId);
-  const parameter = await findParameterRow(manager, limit.parameterId);
+  const point = await findPoint(manager, limit.dischargePointId);
+  const parameter = await findParameter(manager, limit.parameterId);
   const fields: Record<string, string> = {};
   if (!point || point.siteId !== permit.siteId) fields.dischargePointId = 'Not a discharge point of this permit’s site';
   if (!parameter || (parameter.siteId && parameter.siteId !== permit.siteId)) fields.parameterId = 'Not a parameter of this site';
   else if (isMassRate(limit.unit)) {
     // A loading is computed from a concentration and the day's flow (40 CFR 122.45(f) mass limits).
-    if (units[parameter.defaultUnit as string]?.dimension !== 'concentration')
-      fields.unit = `${parameter.name as string} is not measured as a concentration, so it has no mass loading`;
+    if (units[parameter.defaultUnit]?.dimension !== 'concentration')
+      fields.unit = `${parameter.name} is not measured as a concentration, so it has no mass loading`;
     if (limit.statistic !== 'daily-maximum' && limit.statistic !== 'monthly-average')
       fields.statistic = 'A mass limit is a daily maximum or a monthly average';
-  } else if (convert(1, limit.unit, parameter.defaultUnit as string) === null) {
-    fields.unit = `Cannot be compared with ${parameter.name as string} (${parameter.defaultUnit as string})`;
+  } else if (convert(1, limit.unit, parameter.defaultUnit) === null) {
+    fields.unit = `Cannot be compared with ${parameter.name} (${parameter.defaultUnit})`;
   }
   if (Object.keys(fields).length > 0) throw invalid(fields);
 }

@@ -10,6 +10,7 @@ import {
   Unique,
   UpdateDateColumn,
 } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
 
@@ -58,35 +59,35 @@ export class Shipment {
   @Column({ type: 'varchar', name: 'waste_description', length: 300 })
   wasteDescription: string;
 
-  @Column({ type: 'numeric', precision: 12, scale: 2 })
-  quantity: string;
+  @Column({ type: 'numeric', precision: 12, scale: 2, transformer: numeric })
+  quantity: number;
 
   @Column({ type: 'varchar', name: 'quantity_unit', length: 4 })
   quantityUnit: string;
 
-  @Column({ type: 'numeric', name: 'quantity_litres', precision: 14, scale: 6 })
-  quantityLitres: string;
+  @Column({ type: 'numeric', name: 'quantity_litres', precision: 14, scale: 6, transformer: numeric })
+  quantityLitres: number;
 
-  @Column({ type: 'numeric', name: 'total_halogens_ppm', precision: 10, scale: 1, nullable: true })
-  totalHalogensPpm: string | null;
+  @Column({ type: 'numeric', name: 'total_halogens_ppm', precision: 10, scale: 1, nullable: true, transformer: numeric })
+  totalHalogensPpm: number | null;
 
   @Column({ type: 'boolean', name: 'burned_as_fuel', default: false })
   burnedAsFuel: boolean;
 
-  @Column({ type: 'numeric', name: 'arsenic_ppm', precision: 10, scale: 2, nullable: true })
-  arsenicPpm: string | null;
+  @Column({ type: 'numeric', name: 'arsenic_ppm', precision: 10, scale: 2, nullable: true, transformer: numeric })
+  arsenicPpm: number | null;
 
-  @Column({ type: 'numeric', name: 'cadmium_ppm', precision: 10, scale: 2, nullable: true })
-  cadmiumPpm: string | null;
+  @Column({ type: 'numeric', name: 'cadmium_ppm', precision: 10, scale: 2, nullable: true, transformer: numeric })
+  cadmiumPpm: number | null;
 
-  @Column({ type: 'numeric', name: 'chromium_ppm', precision: 10, scale: 2, nullable: true })
-  chromiumPpm: string | null;
+  @Column({ type: 'numeric', name: 'chromium_ppm', precision: 10, scale: 2, nullable: true, transformer: numeric })
+  chromiumPpm: number | null;
 
-  @Column({ type: 'numeric', name: 'lead_ppm', precision: 10, scale: 2, nullable: true })
-  leadPpm: string | null;
+  @Column({ type: 'numeric', name: 'lead_ppm', precision: 10, scale: 2, nullable: true, transformer: numeric })
+  leadPpm: number | null;
 
-  @Column({ type: 'numeric', name: 'flash_point_f', precision: 6, scale: 1, nullable: true })
-  flashPointF: string | null;
+  @Column({ type: 'numeric', name: 'flash_point_f', precision: 6, scale: 1, nullable: true, transformer: numeric })
+  flashPointF: number | null;
 
   @Column({ type: 'date', name: 'signed_copy_received_on', nullable: true })
   signedCopyReceivedOn: string | null;

@@ -1,19 +1,18 @@
-import type { Row } from '../../db/rows.js';
-
-const numberOrNull = (value: unknown) => (value === null || value === undefined ? null : Number(value));
+import type { Target } from '../../kernel/trail/traced-writes.js';
+import { Site } from '../../kernel/sites/site.entity.js';
 
 export const siteTarget = {
-  table: 'site',
+  entityClass: Site,
   entity: 'site',
-  view: (row: Row) => ({
-    id: row.id as string,
-    name: row.name as string,
-    address: row.address as string,
-    timeZone: row.timeZone as string,
+  view: (row: Site) => ({
+    id: row.id,
+    name: row.name,
+    address: row.address,
+    timeZone: row.timeZone,
     retentionYears: Number(row.retentionYears),
-    generatorStatus: row.generatorStatus as string,
-    manifestRule: row.manifestRule as string,
-    oilStorageCapacityGallons: numberOrNull(row.oilStorageCapacityGallons),
+    generatorStatus: row.generatorStatus,
+    manifestRule: row.manifestRule,
+    oilStorageCapacityGallons: row.oilStorageCapacityGallons,
   }),
-  siteIdOf: (row: Row) => row.id as string,
-};
+  siteIdOf: (row: Site) => row.id,
+} satisfies Target<Site, unknown>;

@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -33,8 +34,8 @@ export class UpkeepCheck {
   @Column({ type: 'jsonb' })
   items: unknown;
 
-  @Column({ type: 'numeric', name: 'immersion_value', precision: 6, scale: 2, nullable: true })
-  immersionValue: string | null;
+  @Column({ type: 'numeric', name: 'immersion_value', precision: 6, scale: 2, nullable: true, transformer: numeric })
+  immersionValue: number | null;
 
   @Column({ type: 'varchar', name: 'immersion_unit', length: 4, nullable: true })
   immersionUnit: string | null;

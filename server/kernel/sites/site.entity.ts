@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
+import { numeric } from '../../db/numeric-transformer.js';
 import { Company } from './company.entity.js';
 
 @Check('site_retention_years_check', `(retention_years >= 3)`)
@@ -45,8 +46,8 @@ export class Site {
   manifestRule: 'current' | 'before-2025';
 
   /** Aggregate above-ground oil storage in US gallons (containers of 55 gal and more). */
-  @Column({ type: 'numeric', name: 'oil_storage_capacity_gallons', precision: 12, scale: 2, nullable: true })
-  oilStorageCapacityGallons: string | null;
+  @Column({ type: 'numeric', name: 'oil_storage_capacity_gallons', precision: 12, scale: 2, nullable: true, transformer: numeric })
+  oilStorageCapacityGallons: number | null;
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;
@@ -55,8 +56,8 @@ export class Site {
   updatedAt: Date;
 
   /** Oil on hand when the site began its oil log in Decant, and the day it was measured. */
-  @Column({ type: 'numeric', name: 'oil_opening_balance_litres', precision: 12, scale: 2, default: 0 })
-  oilOpeningBalanceLitres: string;
+  @Column({ type: 'numeric', name: 'oil_opening_balance_litres', precision: 12, scale: 2, default: 0, transformer: numeric })
+  oilOpeningBalanceLitres: number;
 
   @Column({ type: 'date', name: 'oil_opening_balance_on', nullable: true })
   oilOpeningBalanceOn: string | null;

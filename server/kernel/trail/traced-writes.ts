@@ -1,88 +1,103 @@
-import type { DataSource, EntityManager } from 'typeorm';
-import type { Actor } from './trail.js';
-import { recordTrail } from './trail.js';
-import { deleteRow, insertRow, selectRow, updateRow, type Row } from '../../db/rows.js';
-import { notFound } from '../../errors/app-error.js';
+import type { DataSource, DeepPartial, EntityManager, EntityTarget, FindOptionsWhere, ObjectLiteral } from 'typeorm';
+import { conflict, notFound } from '../../errors/app-error.js';
+import { recordTrail, type Actor } from './trail.js';
 
 /**
- * Create, update and delete of one plain row, each with its trail entry in the same
- * transaction. `view` shapes the row as the contract says; `check` runs inside the
- * transaction before the write (for rules that need the database).
+ * How one kind of plain record is written and shown: its entity, its name in the trail, the
+ * contract view of a row, and the site it belongs to.
  */
-interface Target<V> {
-  table: string;
+export interface Target<E extends ObjectLiteral & { id: string }, V> {
+  entityClass: EntityTarget<E>;
   entity: string;
-  view: (row: Row) => V;
-  siteIdOf: (row: Row) => string | null;
+  view: (row: E) => V;
+  siteIdOf: (row: E) => string | null;
 }
 
-export async function createTraced<V>(
+type Check<E> = (manager: EntityManager, before: E) => Promise<void>;
+
+/**
+ * Create, update and delete of one plain record through TypeORM, each with its trail entry in
+ * the same transaction. `check` runs inside the transaction before the write (for rules that
+ * need the database).
+ */
+export async function createTraced<E extends ObjectLiteral & { id: string }, V>(
   dataSource: DataSource,
   actor: Actor,
-  target: Target<V>,
-  fields: Row,
-  hooks: { check?: (manager: EntityManager) => Promise<void>; afterWrite?: (manager: EntityManager, row: Row) => Promise<void> } = {},
+  target: Target<E, V>,
+  fields: DeepPartial<E>,
+  hooks: { check?: (manager: EntityManager) => Promise<void>; afterWrite?: (manager: EntityManager, row: E) => Promise<void> } = {},
 ): Promise<V> {
   return dataSource.transaction(async (manager) => {
     await hooks.check?.(manager);
-    const row = await insertRow(manager, target.table, fields);
-    await hooks.afterWrite?.(manager, row);
-    const after = target.view(row);
-    await recordTrail(manager, actor, {
-      action: 'create',
-      entity: target.entity,
-      entityId: String(row.id),
-      siteId: target.siteIdOf(row),
-      after,
-    });
+    const saved = await manager.save(target.entityClass, manager.create(target.entityClass, fields));
+    // Read back what the database holds (defaults, numeric text), as every later read will see it.
+    const row = await findById(manager, target, saved.id);
+    await hooks.afterWrite?.(manager, row!);
+    const after = target.view(row!);
+    await recordTrail(manager, actor, { action: 'create', entity: target.entity, entityId: row!.id, siteId: target.siteIdOf(row!), after });
     return after;
   });
 }
 
-export async function updateTraced<V>(
+export async function updateTraced<E extends ObjectLiteral & { id: string }, V>(
   dataSource: DataSource,
   actor: Actor,
-  target: Target<V>,
+  target: Target<E, V>,
   id: string,
-  changes: Row,
-  check?: (manager: EntityManager, before: Row) => Promise<void>,
+  changes: DeepPartial<E>,
+  check?: Check<E>,
 ): Promise<V> {
   return dataSource.transaction(async (manager) => {
-    const beforeRow = await selectRow(manager, target.table, id, true);
-    if (!beforeRow) throw notFound(target.entity);
-    await check?.(manager, beforeRow);
-    const row = await updateRow(manager, target.table, id, changes);
+    const before = await findById(manager, target, id, true);
+    if (!before) throw notFound(target.entity);
+    await check?.(manager, before);
+    const written = Object.fromEntries(Object.entries(changes).filter(([, value]) => value !== undefined));
+    if (Object.keys(written).length > 0) await manager.update(target.entityClass, { id } as FindOptionsWhere<E>, written as never);
+    const row = (await findById(manager, target, id))!;
     const after = target.view(row);
     await recordTrail(manager, actor, {
       action: 'update',
       entity: target.entity,
       entityId: id,
       siteId: target.siteIdOf(row),
-      before: target.view(beforeRow),
+      before: target.view(before),
       after,
     });
     return after;
   });
 }
 
-export async function deleteTraced<V>(
+/** Deletes a record; a foreign key that still refers to it turns into a 409 naming why. */
+export async function deleteTraced<E extends ObjectLiteral & { id: string }, V>(
   dataSource: DataSource,
   actor: Actor,
-  target: Target<V>,
+  target: Target<E, V>,
   id: string,
-  check?: (manager: EntityManager, before: Row) => Promise<void>,
+  check?: Check<E>,
 ): Promise<void> {
   await dataSource.transaction(async (manager) => {
-    const beforeRow = await selectRow(manager, target.table, id, true);
-    if (!beforeRow) throw notFound(target.entity);
-    await check?.(manager, beforeRow);
-    await deleteRow(manager, target.table, id, target.entity);
+    const before = await findById(manager, target, id, true);
+    if (!before) throw notFound(target.entity);
+    await check?.(manager, before);
+    try {
+      await manager.delete(target.entityClass, { id } as FindOptionsWhere<E>);
+    } catch (error) {
+      if ((error as { code?: string }).code === '23503') throw conflict(`${target.entity} is used by other records and cannot be deleted`);
+      throw error;
+    }
     await recordTrail(manager, actor, {
       action: 'delete',
       entity: target.entity,
       entityId: id,
-      siteId: target.siteIdOf(beforeRow),
-      before: target.view(beforeRow),
+      siteId: target.siteIdOf(before),
+      before: target.view(before),
     });
+  });
+}
+
+function findById<E extends ObjectLiteral & { id: string }>(manager: EntityManager, target: Target<E, unknown>, id: string, lock = false) {
+  return manager.findOne(target.entityClass, {
+    where: { id } as FindOptionsWhere<E>,
+    ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}),
   });
 }
