@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
+import type { FlowReadingView } from '../../contracts/flow-readings.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -28,7 +29,7 @@ export class FlowReading {
   value: number;
 
   @Column({ type: 'varchar', length: 10 })
-  unit: string;
+  unit: FlowReadingView['unit'];
 
   @Column({ type: 'uuid', name: 'entered_by', nullable: true })
   enteredBy: string | null;

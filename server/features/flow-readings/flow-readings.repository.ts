@@ -2,6 +2,8 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { FlowReadingQuery, FlowReadingRequest, FlowReadingView } from '../../contracts/flow-readings.js';
 import type { Page } from '../../contracts/paging.js';
 import { queryPage } from '../../db/page.js';
+import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
+import { FlowReading } from './flow-reading.entity.js';
 
 type Db = DataSource | EntityManager;
 
@@ -16,6 +18,7 @@ interface FlowReadingRow {
 
 const from = 'FROM flow_reading f JOIN discharge_point d ON d.id = f.discharge_point_id';
 
+// Raw SQL: the page and its count over one filter, read at once (server/db/page.ts).
 export function pageFlowReadings(db: Db, query: FlowReadingQuery): Promise<Page<FlowReadingView>> {
   return queryPage(
     db,
@@ -39,14 +42,13 @@ export function pageFlowReadings(db: Db, query: FlowReadingQuery): Promise<Page<
 }
 
 export async function findPointSiteId(db: Db, pointId: string): Promise<string | undefined> {
-  const [point]: Array<{ site_id: string }> = await db.query('SELECT site_id FROM discharge_point WHERE id = $1', [pointId]);
-  return point?.site_id;
+  return (await db.getRepository(DischargePoint).findOne({ where: { id: pointId }, select: { siteId: true } }))?.siteId;
 }
 
 /** A site's discharge point ids by code, to read an import's rows. */
 export async function pointIdsByCode(db: Db, siteId: string): Promise<Map<string, string>> {
-  const rows: Array<{ code: string; id: string }> = await db.query('SELECT code, id FROM discharge_point WHERE site_id = $1', [siteId]);
-  return new Map(rows.map((row) => [row.code, row.id]));
+  const points = await db.getRepository(DischargePoint).find({ where: { siteId }, select: { id: true, code: true } });
+  return new Map(points.map((point) => [point.code, point.id]));
 }
 
 /** Writes a day's reading, replacing an earlier one; answers what it replaced (for the trail). */
@@ -55,15 +57,11 @@ export async function upsertFlowReading(
   reading: FlowReadingRequest,
   enteredBy: string,
 ): Promise<{ id: string; before: { value: number; unit: string } | null }> {
-  const [before]: Array<{ value: string; unit: string }> = await manager.query(
-    'SELECT value, unit FROM flow_reading WHERE discharge_point_id = $1 AND day = $2',
-    [reading.dischargePointId, reading.day],
-  );
-  const [row]: Array<{ id: string }> = await manager.query(
-    `INSERT INTO flow_reading (discharge_point_id, day, value, unit, entered_by) VALUES ($1, $2, $3, $4, $5)
-     ON CONFLICT (discharge_point_id, day) DO UPDATE SET value = excluded.value, unit = excluded.unit, entered_by = excluded.entered_by
-     RETURNING id`,
-    [reading.dischargePointId, reading.day, reading.value, reading.unit, enteredBy],
-  );
-  return { id: row!.id, before: before ? { value: Number(before.value), unit: before.unit } : null };
+  const before = await manager.findOne(FlowReading, {
+    where: { dischargePointId: reading.dischargePointId, day: reading.day },
+    select: { value: true, unit: true },
+  });
+  await manager.upsert(FlowReading, { ...reading, enteredBy }, ['dischargePointId', 'day']);
+  const row = await manager.findOneByOrFail(FlowReading, { dischargePointId: reading.dischargePointId, day: reading.day });
+  return { id: row.id, before: before ? { value: before.value, unit: before.unit } : null };
 }

@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
+import type { FollowUpStatus } from '../../contracts/follow-ups.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -37,7 +38,7 @@ export class FollowUp {
   dueAt: Date;
 
   @Column({ type: 'varchar', length: 12, default: 'open' })
-  status: string;
+  status: FollowUpStatus;
 
   @Column({ type: 'uuid', name: 'owner_id', nullable: true })
   ownerId: string | null;

@@ -1,9 +1,29 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { FollowUpQuery, FollowUpStatus, FollowUpView } from '../../contracts/follow-ups.js';
+import type { FollowUpQuery, FollowUpView } from '../../contracts/follow-ups.js';
 import type { Page } from '../../contracts/paging.js';
 import { queryPage } from '../../db/page.js';
+import { FollowUp } from './follow-up.entity.js';
 
 type Db = DataSource | EntityManager;
+
+type FollowUpFields = Pick<
+  FollowUp,
+  'id' | 'siteId' | 'kind' | 'sourceEntity' | 'sourceId' | 'title' | 'dueAt' | 'status' | 'closedAt' | 'closingNote' | 'closingFileId'
+>;
+
+const view = (row: FollowUpFields): FollowUpView => ({
+  id: row.id,
+  siteId: row.siteId,
+  kind: row.kind,
+  sourceEntity: row.sourceEntity,
+  sourceId: row.sourceId,
+  title: row.title,
+  dueAt: row.dueAt.toISOString(),
+  status: row.status,
+  closedAt: row.closedAt?.toISOString() ?? null,
+  closingNote: row.closingNote,
+  hasClosingFile: row.closingFileId !== null,
+});
 
 interface FollowUpRow {
   id: string;
@@ -13,26 +33,13 @@ interface FollowUpRow {
   source_id: string;
   title: string;
   due_at: Date;
-  status: FollowUpStatus;
+  status: FollowUp['status'];
   closed_at: Date | null;
   closing_note: string | null;
   closing_file_id: string | null;
 }
 
-const view = (row: FollowUpRow): FollowUpView => ({
-  id: row.id,
-  siteId: row.site_id,
-  kind: row.kind,
-  sourceEntity: row.source_entity,
-  sourceId: row.source_id,
-  title: row.title,
-  dueAt: row.due_at.toISOString(),
-  status: row.status,
-  closedAt: row.closed_at?.toISOString() ?? null,
-  closingNote: row.closing_note,
-  hasClosingFile: row.closing_file_id !== null,
-});
-
+// Raw SQL: the page and its count over one filter, read at once (server/db/page.ts).
 export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): Promise<Page<FollowUpView>> {
   return queryPage(
     db,
@@ -44,35 +51,50 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
       params: [siteIds, query.status ?? null],
     },
     query,
-    view,
+    (row: FollowUpRow) =>
+      view({
+        id: row.id,
+        siteId: row.site_id,
+        kind: row.kind,
+        sourceEntity: row.source_entity,
+        sourceId: row.source_id,
+        title: row.title,
+        dueAt: row.due_at,
+        status: row.status,
+        closedAt: row.closed_at,
+        closingNote: row.closing_note,
+        closingFileId: row.closing_file_id,
+      }),
   );
 }
 
 /** The follow-up, locked for the rest of the transaction. */
-export async function lockFollowUp(manager: EntityManager, id: string): Promise<(FollowUpView & { closingFileId: string | null }) | null> {
-  const [row]: FollowUpRow[] = await manager.query('SELECT * FROM follow_up WHERE id = $1 FOR UPDATE', [id]);
-  return row ? { ...view(row), closingFileId: row.closing_file_id } : null;
+export async function lockFollowUp(manager: EntityManager, id: string): Promise<FollowUpView | null> {
+  const row = await manager.findOne(FollowUp, { where: { id }, lock: { mode: 'pessimistic_write' } });
+  return row ? view(row) : null;
 }
 
-export async function findFollowUpFile(db: Db, id: string): Promise<{ siteId: string; closingFileId: string | null } | null> {
-  const [row]: Array<{ site_id: string; closing_file_id: string | null }> = await db.query(
-    'SELECT site_id, closing_file_id FROM follow_up WHERE id = $1',
-    [id],
-  );
-  return row ? { siteId: row.site_id, closingFileId: row.closing_file_id } : null;
+export function findFollowUpFile(db: Db, id: string): Promise<Pick<FollowUp, 'siteId' | 'closingFileId'> | null> {
+  return db.getRepository(FollowUp).findOne({ where: { id }, select: { siteId: true, closingFileId: true } });
 }
 
-/** Done, or done late when the deadline has passed. */
+/** Done, or done late when the deadline has passed (the database's clock decides). */
 export async function closeFollowUp(
   manager: EntityManager,
   id: string,
   closing: { note: string; ownerId: string; fileId: string | null },
 ): Promise<FollowUpView> {
-  // An UPDATE … RETURNING answers [rows, count] through TypeORM.
-  const [[row]]: [FollowUpRow[], number] = await manager.query(
-    `UPDATE follow_up SET status = CASE WHEN now() > due_at THEN 'done-late' ELSE 'done' END, closed_at = now(), closing_note = $2, owner_id = $3,
-     closing_file_id = $4 WHERE id = $1 RETURNING *`,
-    [id, closing.note, closing.ownerId, closing.fileId],
-  );
-  return view(row!);
+  await manager
+    .createQueryBuilder()
+    .update(FollowUp)
+    .set({
+      status: () => `CASE WHEN now() > due_at THEN 'done-late' ELSE 'done' END`,
+      closedAt: () => 'now()',
+      closingNote: closing.note,
+      ownerId: closing.ownerId,
+      closingFileId: closing.fileId,
+    })
+    .where('id = :id', { id })
+    .execute();
+  return view(await manager.findOneByOrFail(FollowUp, { id }));
 }

@@ -22,10 +22,9 @@ export class FollowUpsService {
   async close(user: CurrentUser, id: string, request: CloseFollowUpRequest, file: Express.Multer.File | undefined): Promise<FollowUpView> {
     const checkedFile = file ? await checkUpload(file, evidenceTypes) : null;
     return this.dataSource.transaction(async (manager) => {
-      const locked = await lockFollowUp(manager, id);
-      assertSiteVisible(user, locked?.siteId, 'Follow-up');
-      const { closingFileId: _closingFileId, ...before } = locked!;
-      if (before.status !== 'open') throw conflict('This follow-up is already closed');
+      const before = await lockFollowUp(manager, id);
+      assertSiteVisible(user, before?.siteId, 'Follow-up');
+      if (before!.status !== 'open') throw conflict('This follow-up is already closed');
       const stored = checkedFile ? await storeFile(manager, file!, checkedFile.mediaType, user.id) : null;
       const after = await closeFollowUp(manager, id, { note: request.note, ownerId: user.id, fileId: stored?.id ?? null });
       await recordTrail(manager, user, { action: 'close', entity: 'follow-up', entityId: id, siteId: after.siteId, before, after });

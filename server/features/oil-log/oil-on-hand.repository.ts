@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { OilBalanceInput } from '../../domain/oil-collection.js';
+import { Site } from '../../kernel/sites/site.entity.js';
 
 export interface OilBalanceRecord extends OilBalanceInput {
   openingOn: string | null;
@@ -40,14 +41,10 @@ export interface OpeningBalance {
 }
 
 export async function findOpeningBalance(manager: EntityManager, siteId: string): Promise<OpeningBalance> {
-  const [row] = await manager.query('SELECT oil_opening_balance_litres, oil_opening_balance_on FROM site WHERE id = $1', [siteId]);
-  return { litres: Number(row.oil_opening_balance_litres), on: row.oil_opening_balance_on };
+  const site = await manager.findOneByOrFail(Site, { id: siteId });
+  return { litres: site.oilOpeningBalanceLitres, on: site.oilOpeningBalanceOn };
 }
 
 export async function saveOpeningBalance(manager: EntityManager, siteId: string, balance: { litres: number; on: string }): Promise<void> {
-  await manager.query('UPDATE site SET oil_opening_balance_litres = $2, oil_opening_balance_on = $3, updated_at = now() WHERE id = $1', [
-    siteId,
-    balance.litres,
-    balance.on,
-  ]);
+  await manager.update(Site, { id: siteId }, { oilOpeningBalanceLitres: balance.litres, oilOpeningBalanceOn: balance.on });
 }

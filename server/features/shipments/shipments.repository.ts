@@ -1,9 +1,10 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import type { DataSource, DeepPartial, EntityManager, QueryDeepPartialEntity } from 'typeorm';
 import type { Page } from '../../contracts/paging.js';
 import type { ShipmentView } from '../../contracts/shipments.js';
 import { daysLeft, manifestDeadlines, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
 import { queryPage } from '../../db/page.js';
-import { insertRow, updateRow, type Row } from '../../db/rows.js';
+import { ShipmentFile } from './shipment-file.entity.js';
+import { Shipment } from './shipment.entity.js';
 
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
@@ -98,14 +99,14 @@ export async function pageShipments(
   );
 }
 
-export async function insertShipment(manager: EntityManager, fields: Row): Promise<string> {
-  return (await insertRow(manager, 'shipment', fields)).id as string;
+export async function insertShipment(manager: EntityManager, fields: DeepPartial<Shipment>): Promise<string> {
+  return (await manager.save(Shipment, manager.create(Shipment, fields))).id;
 }
 
-export async function updateShipment(manager: EntityManager, id: string, changes: Row): Promise<void> {
-  await updateRow(manager, 'shipment', id, changes);
+export async function updateShipment(manager: EntityManager, id: string, changes: QueryDeepPartialEntity<Shipment>): Promise<void> {
+  await manager.update(Shipment, { id }, changes);
 }
 
 export async function attachShipmentFile(manager: EntityManager, shipmentId: string, fileId: string): Promise<void> {
-  await manager.query('INSERT INTO shipment_file (shipment_id, file_id) VALUES ($1, $2)', [shipmentId, fileId]);
+  await manager.insert(ShipmentFile, { shipmentId, fileId });
 }

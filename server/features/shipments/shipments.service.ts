@@ -19,15 +19,9 @@ const duplicate = 'This site already recorded a shipment with this document';
 type ShipmentBody = Partial<CreateShipmentRequest>;
 
 /** Columns of a shipment as written: canonical litres and the 279 flags come from the same body. */
-function columns(merged: Required<Omit<ShipmentBody, 'siteId'>>, changes: ShipmentBody): Record<string, unknown> {
-  const flags = usedOilFlags(merged);
-  const written: Record<string, unknown> = {
-    ...changes,
-    quantityLitres: convert(merged.quantity, merged.quantityUnit, 'L'),
-    flags: JSON.stringify(flags),
-  };
-  delete written.siteId;
-  return written;
+function columns(merged: Required<Omit<ShipmentBody, 'siteId'>>, changes: ShipmentBody) {
+  const { siteId: _siteId, ...written } = changes;
+  return { ...written, quantityLitres: convert(merged.quantity, merged.quantityUnit, 'L')!, flags: usedOilFlags(merged) };
 }
 
 /** Once the signed copy is in, the papers are the coordinator's to change. */

@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { UpkeepCheckView } from '../../contracts/oil.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
@@ -32,13 +33,13 @@ export class UpkeepCheck {
   checkedOn: string;
 
   @Column({ type: 'jsonb' })
-  items: unknown;
+  items: UpkeepCheckView['items'];
 
   @Column({ type: 'numeric', name: 'immersion_value', precision: 6, scale: 2, nullable: true, transformer: numeric })
   immersionValue: number | null;
 
   @Column({ type: 'varchar', name: 'immersion_unit', length: 4, nullable: true })
-  immersionUnit: string | null;
+  immersionUnit: UpkeepCheckView['immersionUnit'];
 
   @Column({ type: 'smallint', name: 'failed_count', default: 0 })
   failedCount: number;

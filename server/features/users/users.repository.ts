@@ -1,4 +1,6 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import { In, type DataSource, type EntityManager } from 'typeorm';
+import { UserSite } from '../../kernel/people/user-site.entity.js';
+import { Site } from '../../kernel/sites/site.entity.js';
 import type { Page, PageQuery } from '../../contracts/paging.js';
 import type { UserView } from '../../contracts/users.js';
 
@@ -33,6 +35,7 @@ const toView = (row: UserRow): UserView => ({
   createdAt: row.created_at.toISOString(),
 });
 
+// Raw SQL: one statement aggregates each person's sites beside the page of people.
 const selectUsers = `
   SELECT u.id, u.email, u.name, u.role, u.active, u.last_sign_in_at, u.created_at,
          coalesce(array_agg(us.site_id ORDER BY us.site_id) FILTER (WHERE us.site_id IS NOT NULL), '{}') AS site_ids
@@ -63,13 +66,14 @@ export async function findUserView(manager: EntityManager | DataSource, id: stri
 }
 
 export async function replaceUserSites(manager: EntityManager, userId: string, siteIds: string[]): Promise<void> {
-  await manager.query('DELETE FROM user_site WHERE user_id = $1', [userId]);
-  if (siteIds.length > 0) {
-    await manager.query('INSERT INTO user_site (user_id, site_id) SELECT $1, unnest($2::uuid[])', [userId, [...new Set(siteIds)]]);
-  }
+  await manager.delete(UserSite, { userId });
+  if (siteIds.length > 0)
+    await manager.insert(
+      UserSite,
+      [...new Set(siteIds)].map((siteId) => ({ userId, siteId })),
+    );
 }
 
 export async function countExistingSites(manager: EntityManager, siteIds: string[]): Promise<number> {
-  const [{ count }] = await manager.query('SELECT count(*)::int AS count FROM site WHERE id = ANY($1::uuid[])', [[...new Set(siteIds)]]);
-  return count;
+  return manager.countBy(Site, { id: In([...new Set(siteIds)]) });
 }

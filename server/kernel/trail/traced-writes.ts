@@ -52,6 +52,7 @@ export async function updateTraced<E extends ObjectLiteral & { id: string }, V>(
     if (!before) throw notFound(target.entity);
     await check?.(manager, before);
     const written = Object.fromEntries(Object.entries(changes).filter(([, value]) => value !== undefined));
+    // TypeORM's partial-update type cannot be derived from a generic entity; the target's own fields are written.
     if (Object.keys(written).length > 0) await manager.update(target.entityClass, { id } as FindOptionsWhere<E>, written as never);
     const row = (await findById(manager, target, id))!;
     const after = target.view(row);

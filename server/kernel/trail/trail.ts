@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import { TrailEntry } from './trail-entry.entity.js';
 
 export interface Actor {
   id: string | null;
@@ -22,18 +23,14 @@ export async function recordTrail(manager: EntityManager, actor: Actor, record: 
   if (!manager.queryRunner?.isTransactionActive) {
     throw new Error('recordTrail must run inside the transaction that makes the change');
   }
-  await manager.query(
-    `INSERT INTO trail_entry (actor_id, actor_email, action, entity, entity_id, site_id, before, after)
-     VALUES ($1, $2, $3, $4, $5, $6, $7::jsonb, $8::jsonb)`,
-    [
-      actor.id,
-      actor.email,
-      record.action,
-      record.entity,
-      record.entityId,
-      record.siteId ?? null,
-      record.before == null ? null : JSON.stringify(record.before),
-      record.after == null ? null : JSON.stringify(record.after),
-    ],
-  );
+  await manager.insert(TrailEntry, {
+    actorId: actor.id,
+    actorEmail: actor.email,
+    action: record.action,
+    entity: record.entity,
+    entityId: record.entityId,
+    siteId: record.siteId ?? null,
+    before: record.before ?? null,
+    after: record.after ?? null,
+  });
 }
