@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { CreateDischargePointRequest, DischargePoint, UpdateDischargePointRequest } from '../../contracts/setup.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteVisible } from '../../auth/site-access.js';
-import { uniquely } from '../../db/rows.js';
+import { uniquely } from '../../db/uniquely.js';
 import { notFound } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
 import { dischargePointTarget as target, findDischargePoints } from './discharge-points.repository.js';

@@ -36,7 +36,7 @@ export class Equipment {
   ratedCapacity: number;
 
   @Column({ type: 'varchar', name: 'rated_unit', length: 8 })
-  ratedUnit: string;
+  ratedUnit: 'gal/h' | 'L/h';
 
   @Column({ type: 'varchar', name: 'medium_material', length: 80, nullable: true })
   mediumMaterial: string | null;

@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { CreateEquipmentRequest, EquipmentView, UpdateEquipmentRequest } from '../../contracts/oil.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { uniquely } from '../../db/rows.js';
+import { uniquely } from '../../db/uniquely.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
 import { equipmentTarget as target, findEquipment, findEquipmentSiteId } from './equipment.repository.js';

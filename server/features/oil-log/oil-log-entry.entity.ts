@@ -1,4 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import type { OilLogEntryView } from '../../contracts/oil.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
@@ -41,7 +42,7 @@ export class OilLogEntry {
   enteredVolume: number;
 
   @Column({ type: 'varchar', name: 'entered_unit', length: 4 })
-  enteredUnit: string;
+  enteredUnit: OilLogEntryView['enteredUnit'];
 
   @Column({ type: 'numeric', name: 'hours_run', precision: 4, scale: 1, nullable: true, transformer: numeric })
   hoursRun: number | null;
@@ -56,7 +57,7 @@ export class OilLogEntry {
   note: string;
 
   @Column({ type: 'jsonb', default: '[]' })
-  flags: unknown;
+  flags: OilLogEntryView['flags'];
 
   @Column({ type: 'uuid', name: 'entered_by' })
   enteredBy: string;

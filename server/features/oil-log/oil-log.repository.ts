@@ -1,4 +1,6 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import type { DataSource, DeepPartial, EntityManager, QueryDeepPartialEntity } from 'typeorm';
+import { Equipment } from '../equipment/equipment.entity.js';
+import { OilLogEntry } from './oil-log-entry.entity.js';
 import type { OilLogEntryView } from '../../contracts/oil.js';
 import type { Page } from '../../contracts/paging.js';
 import { queryPage } from '../../db/page.js';
@@ -6,10 +8,30 @@ import { queryPage } from '../../db/page.js';
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
 
+interface OilLogEntryRow {
+  id: string;
+  equipment_id: string;
+  equipment_name: string;
+  site_id: string;
+  collected_on: string;
+  volume_litres: string;
+  entered_volume: string;
+  entered_unit: OilLogEntryView['enteredUnit'];
+  hours_run: string | null;
+  water_temperature_c: string | null;
+  observations: string[];
+  note: string;
+  flags: OilLogEntryView['flags'];
+  entered_by: string;
+  entered_by_name: string;
+  created_at: Date;
+}
+
+// Raw SQL: one joined read serves the entry, the paged list (with its count) and the equipment's name.
 const select = `SELECT o.*, e.name AS equipment_name, u.name AS entered_by_name
   FROM oil_log_entry o JOIN equipment e ON e.id = o.equipment_id JOIN app_user u ON u.id = o.entered_by`;
 
-function view(row: Record<string, any>): OilLogEntryView {
+function view(row: OilLogEntryRow): OilLogEntryView {
   return {
     id: row.id,
     equipmentId: row.equipment_id,
@@ -31,7 +53,7 @@ function view(row: Record<string, any>): OilLogEntryView {
 }
 
 export async function findOilLogEntry(db: Db, id: string): Promise<OilLogEntryView | null> {
-  const [row] = await db.query(`${select} WHERE o.id = $1`, [id]);
+  const [row]: OilLogEntryRow[] = await db.query(`${select} WHERE o.id = $1`, [id]);
   return row ? view(row) : null;
 }
 
@@ -76,4 +98,18 @@ export async function oilTotals(
     litres: Number(row.litres),
     entries: row.entries,
   }));
+}
+
+export function findEquipmentRating(db: Db, id: string) {
+  return db
+    .getRepository(Equipment)
+    .findOne({ where: { id }, select: { id: true, siteId: true, ratedCapacity: true, ratedUnit: true, active: true } });
+}
+
+export async function insertOilLogEntry(manager: EntityManager, entry: DeepPartial<OilLogEntry>): Promise<string> {
+  return (await manager.save(OilLogEntry, manager.create(OilLogEntry, entry))).id;
+}
+
+export async function updateOilLogEntry(manager: EntityManager, id: string, changes: QueryDeepPartialEntity<OilLogEntry>): Promise<void> {
+  await manager.update(OilLogEntry, { id }, changes);
 }

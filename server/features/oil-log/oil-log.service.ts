@@ -8,25 +8,25 @@ import { convert } from '../../domain/units.js';
 import { forbidden, invalid, notFound } from '../../errors/app-error.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
-import { findOilLogEntry, oilTotals, pageOilLog } from './oil-log.repository.js';
+import { findEquipmentRating, findOilLogEntry, insertOilLogEntry, oilTotals, pageOilLog, updateOilLogEntry } from './oil-log.repository.js';
 
-interface Equipment {
+interface CollectingEquipment {
   id: string;
   siteId: string;
   ratedLph: number;
   active: boolean;
 }
 
-async function loadEquipment(manager: EntityManager, id: string, user: CurrentUser): Promise<Equipment> {
-  const [row] = await manager.query('SELECT id, site_id, rated_capacity, rated_unit, active FROM equipment WHERE id = $1', [id]);
-  if (!row || !user.siteIds.includes(row.site_id)) throw invalid({ equipmentId: 'No such equipment at your sites' });
-  return { id: row.id, siteId: row.site_id, ratedLph: ratingLitresPerHour(Number(row.rated_capacity), row.rated_unit), active: row.active };
+async function loadEquipment(manager: EntityManager, id: string, user: CurrentUser): Promise<CollectingEquipment> {
+  const equipment = await findEquipmentRating(manager, id);
+  if (!equipment || !user.siteIds.includes(equipment.siteId)) throw invalid({ equipmentId: 'No such equipment at your sites' });
+  return { ...equipment, ratedLph: ratingLitresPerHour(equipment.ratedCapacity, equipment.ratedUnit) };
 }
 
 /** Checks what needs the database and returns the canonical litres and the entry's flags. */
 async function checkEntry(
   manager: EntityManager,
-  equipment: Equipment,
+  equipment: CollectingEquipment,
   entry: { collectedOn: string; volume: number; unit: 'gal' | 'L'; hoursRun: number | null },
 ) {
   const litres = convert(entry.volume, entry.unit, 'L')!;
@@ -63,27 +63,22 @@ export class OilLogService {
       const equipment = await loadEquipment(manager, request.equipmentId, user);
       if (!equipment.active) throw invalid({ equipmentId: 'This equipment is retired' });
       const { litres, flags } = await checkEntry(manager, equipment, request);
-      const [row] = await manager.query(
-        `INSERT INTO oil_log_entry (equipment_id, site_id, collected_on, volume_litres, entered_volume, entered_unit, hours_run,
-           water_temperature_c, observations, note, flags, entered_by)
-         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12) RETURNING id`,
-        [
-          equipment.id,
-          equipment.siteId,
-          request.collectedOn,
-          litres,
-          request.volume,
-          request.unit,
-          request.hoursRun,
-          request.waterTemperatureC,
-          request.observations,
-          request.note,
-          JSON.stringify(flags),
-          user.id,
-        ],
-      );
-      const after = (await findOilLogEntry(manager, row.id))!;
-      await recordTrail(manager, user, { action: 'create', entity: 'oil-log-entry', entityId: row.id, siteId: equipment.siteId, after });
+      const id = await insertOilLogEntry(manager, {
+        equipmentId: equipment.id,
+        siteId: equipment.siteId,
+        collectedOn: request.collectedOn,
+        volumeLitres: litres,
+        enteredVolume: request.volume,
+        enteredUnit: request.unit,
+        hoursRun: request.hoursRun,
+        waterTemperatureC: request.waterTemperatureC,
+        observations: request.observations,
+        note: request.note,
+        flags,
+        enteredBy: user.id,
+      });
+      const after = (await findOilLogEntry(manager, id))!;
+      await recordTrail(manager, user, { action: 'create', entity: 'oil-log-entry', entityId: id, siteId: equipment.siteId, after });
       return after;
     });
   }
@@ -108,22 +103,17 @@ export class OilLogService {
       };
       const equipment = await loadEquipment(manager, entry.equipmentId, user);
       const { litres, flags } = await checkEntry(manager, equipment, merged);
-      await manager.query(
-        `UPDATE oil_log_entry SET collected_on = $2, volume_litres = $3, entered_volume = $4, entered_unit = $5, hours_run = $6,
-           water_temperature_c = $7, observations = $8, note = $9, flags = $10, updated_at = now() WHERE id = $1`,
-        [
-          id,
-          merged.collectedOn,
-          litres,
-          merged.volume,
-          merged.unit,
-          merged.hoursRun,
-          request.waterTemperatureC === undefined ? entry.waterTemperatureC : request.waterTemperatureC,
-          request.observations ?? entry.observations,
-          request.note ?? entry.note,
-          JSON.stringify(flags),
-        ],
-      );
+      await updateOilLogEntry(manager, id, {
+        collectedOn: merged.collectedOn,
+        volumeLitres: litres,
+        enteredVolume: merged.volume,
+        enteredUnit: merged.unit,
+        hoursRun: merged.hoursRun,
+        waterTemperatureC: request.waterTemperatureC === undefined ? entry.waterTemperatureC : request.waterTemperatureC,
+        observations: request.observations ?? entry.observations,
+        note: request.note ?? entry.note,
+        flags,
+      });
       const after = await findOilLogEntry(manager, id);
       if (!after) throw notFound('Oil log entry');
       await recordTrail(manager, user, {

@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { CreateParameterRequest, UpdateParameterRequest } from '../../contracts/setup.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed } from '../../auth/site-access.js';
-import { uniquely } from '../../db/rows.js';
+import { uniquely } from '../../db/uniquely.js';
 import type { Parameter } from './parameter.entity.js';
 import { forbidden } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';

@@ -2,7 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { CreateLimitRequest, CreatePermitRequest, UpdateLimitRequest, UpdatePermitRequest } from '../../contracts/setup.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { uniquely } from '../../db/rows.js';
+import { uniquely } from '../../db/uniquely.js';
 import type { Permit } from './permit.entity.js';
 import { convert, isMassRate, units } from '../../domain/units.js';
 import { invalid, notFound } from '../../errors/app-error.js';

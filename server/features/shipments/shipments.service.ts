@@ -4,7 +4,7 @@ import { can } from '../../contracts/permissions.js';
 import type { CreateShipmentRequest, ShipmentQuery, ShipmentView, UpdateShipmentRequest } from '../../contracts/shipments.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { uniquely } from '../../db/rows.js';
+import { uniquely } from '../../db/uniquely.js';
 import { convert } from '../../domain/units.js';
 import { usedOilFlags } from '../../domain/used-oil.js';
 import { forbidden, invalid, notFound } from '../../errors/app-error.js';

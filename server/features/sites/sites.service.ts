@@ -3,7 +3,7 @@ import type { CreateSiteRequest, UpdateSiteRequest } from '../../contracts/setup
 import type { SiteSummary } from '../../contracts/sites.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteVisible } from '../../auth/site-access.js';
-import { uniquely } from '../../db/rows.js';
+import { uniquely } from '../../db/uniquely.js';
 import { notFound } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
 import { siteTarget } from './site.views.js';

@@ -30,7 +30,7 @@ export async function recordTrail(manager: EntityManager, actor: Actor, record: 
     entity: record.entity,
     entityId: record.entityId,
     siteId: record.siteId ?? null,
-    before: record.before ?? null,
-    after: record.after ?? null,
+    before: record.before ?? undefined,
+    after: record.after ?? undefined,
   });
 }
