@@ -1,4 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
+import type { Flag } from '../../contracts/flags.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -37,7 +38,7 @@ export class LabCertificate {
   file?: StoredFile;
 
   @Column({ type: 'jsonb', default: '[]' })
-  flags: unknown;
+  flags: Flag[];
 
   @Column({ type: 'uuid', name: 'created_by', nullable: true })
   createdBy: string | null;

@@ -14,7 +14,15 @@ import { checkUpload, sendStoredFile, storeFile, type Upload } from '../../kerne
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { writeCertificateContent } from './certificate-content.js';
 import { computeCertificateFlags, limitsInForce, type LimitsInForce } from './lab-flags.service.js';
-import { loadCertificate, pageCertificates, pageResults } from './lab.repository.js';
+import {
+  findSiteZone,
+  insertCertificateRecord,
+  loadCertificate,
+  pageCertificates,
+  pageResults,
+  reportNumberTaken,
+  updateCertificateRecord,
+} from './lab.repository.js';
 
 /** A list narrowed to one of the user's sites, or all of them. */
 function siteScope(user: CurrentUser, siteId: string | undefined): string[] {
@@ -73,46 +81,34 @@ export class LabCertificatesService {
     /** An import passes one lookup for all its certificates. */
     limits: LimitsInForce = limitsInForce(manager),
   ): Promise<string> {
-    const [site] = await manager.query('SELECT id, time_zone FROM site WHERE id = $1', [request.siteId]);
+    const site = await findSiteZone(manager, request.siteId);
     if (!site) throw notFound('Site');
     const stored = file ? await storeFile(manager, file.upload, file.mediaType, user.id) : null;
-    const existing = await manager.query('SELECT 1 FROM lab_certificate WHERE lab_name = $1 AND report_number = $2', [
-      request.labName,
-      request.reportNumber,
-    ]);
-    if (existing.length > 0) throw duplicateReport();
-    const [row] = await manager.query(
-      `INSERT INTO lab_certificate (site_id, lab_name, lab_accreditation_number, report_number, received_on, file_id, created_by)
-       VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
-      [
-        request.siteId,
-        request.labName,
-        request.labAccreditationNumber,
-        request.reportNumber,
-        request.receivedOn,
-        stored?.id ?? null,
-        user.id,
-      ],
-    );
-    await writeCertificateContent(manager, row.id, { id: site.id, timeZone: site.time_zone }, request, { replacing: false });
-    await computeCertificateFlags(manager, row.id, { limits });
-    return row.id;
+    if (await reportNumberTaken(manager, request)) throw duplicateReport();
+    const id = await insertCertificateRecord(manager, {
+      siteId: request.siteId,
+      labName: request.labName,
+      labAccreditationNumber: request.labAccreditationNumber,
+      reportNumber: request.reportNumber,
+      receivedOn: request.receivedOn,
+      fileId: stored?.id ?? null,
+      createdBy: user.id,
+    });
+    await writeCertificateContent(manager, id, site, request, { replacing: false });
+    await computeCertificateFlags(manager, id, { limits });
+    return id;
   }
 
   async update(user: CurrentUser, id: string, request: UpdateLabCertificateRequest): Promise<CertificateDetail> {
     return this.dataSource.transaction(async (manager) => {
       const before = await this.visible(manager, user, id);
-      const clash = await manager.query('SELECT 1 FROM lab_certificate WHERE lab_name = $1 AND report_number = $2 AND id <> $3', [
-        request.labName,
-        request.reportNumber,
-        id,
-      ]);
-      if (clash.length > 0) throw duplicateReport();
-      await manager.query(
-        `UPDATE lab_certificate SET lab_name = $2, lab_accreditation_number = $3, report_number = $4, received_on = $5, updated_at = now()
-          WHERE id = $1`,
-        [id, request.labName, request.labAccreditationNumber, request.reportNumber, request.receivedOn],
-      );
+      if (await reportNumberTaken(manager, request, id)) throw duplicateReport();
+      await updateCertificateRecord(manager, id, {
+        labName: request.labName,
+        labAccreditationNumber: request.labAccreditationNumber,
+        reportNumber: request.reportNumber,
+        receivedOn: request.receivedOn,
+      });
       await writeCertificateContent(manager, id, { id: before.siteId, timeZone: before.timeZone }, request);
       await computeCertificateFlags(manager, id);
       const after = (await loadCertificate(manager, id))!;
@@ -126,7 +122,7 @@ export class LabCertificatesService {
     return this.dataSource.transaction(async (manager) => {
       const before = await this.visible(manager, user, id);
       const stored = await storeFile(manager, upload!, mediaType, user.id);
-      await manager.query('UPDATE lab_certificate SET file_id = $2, updated_at = now() WHERE id = $1', [id, stored.id]);
+      await updateCertificateRecord(manager, id, { fileId: stored.id });
       const after = (await loadCertificate(manager, id))!;
       await recordTrail(manager, user, {
         action: 'attach-file',

@@ -1,4 +1,5 @@
 import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { Flag } from '../../contracts/flags.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { LabSample } from './lab-sample.entity.js';
 import { Parameter } from '../parameters/parameter.entity.js';
@@ -33,7 +34,7 @@ export class LabResult {
   method: string;
 
   @Column({ type: 'char', length: 1, nullable: true })
-  qualifier: string | null;
+  qualifier: '<' | null;
 
   @Column({ type: 'varchar', name: 'value_reported', length: 32 })
   valueReported: string;
@@ -61,7 +62,7 @@ export class LabResult {
   qcBatch?: QcBatch;
 
   @Column({ type: 'jsonb', default: '[]' })
-  flags: unknown;
+  flags: Flag[];
 
   @Column({ type: 'text', name: 'flag_codes', array: true, default: '{}' })
   flagCodes: string[];

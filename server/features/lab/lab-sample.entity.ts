@@ -1,4 +1,6 @@
 import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { Flag } from '../../contracts/flags.js';
+import type { SampleView } from '../../contracts/lab.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { LabCertificate } from './lab-certificate.entity.js';
@@ -38,7 +40,7 @@ export class LabSample {
   collectedBy: string;
 
   @Column({ type: 'varchar', name: 'sample_type', length: 24 })
-  sampleType: string;
+  sampleType: SampleView['sampleType'];
 
   @Column({ type: 'boolean', name: 'preservation_confirmed' })
   preservationConfirmed: boolean;
@@ -50,5 +52,5 @@ export class LabSample {
   chainOfCustodyNumber: string | null;
 
   @Column({ type: 'jsonb', default: '[]' })
-  flags: unknown;
+  flags: Flag[];
 }

@@ -1,5 +1,11 @@
 import { DateTime } from 'luxon';
-import type { DataSource, EntityManager } from 'typeorm';
+import { Not, type DataSource, type DeepPartial, type EntityManager, type QueryDeepPartialEntity } from 'typeorm';
+import { Site } from '../../kernel/sites/site.entity.js';
+import { Parameter } from '../parameters/parameter.entity.js';
+import { LabCertificate } from './lab-certificate.entity.js';
+import { LabResult } from './lab-result.entity.js';
+import { LabSample } from './lab-sample.entity.js';
+import { QcBatch } from './qc-batch.entity.js';
 import type { CertificateDetail, CertificateSummary, ResultRow, ResultView, StoredFileView } from '../../contracts/lab.js';
 import type { Page } from '../../contracts/paging.js';
 import { toMethodPrecision } from '../../domain/method-1664.js';
@@ -23,37 +29,64 @@ export function shownValue(row: {
   return row.value_reported;
 }
 
-function resultView(row: Record<string, any>, zone: string): ResultView {
+function resultView(result: LabResult & { parameter: Parameter; qcBatch?: QcBatch | null }, zone: string): ResultView {
   return {
-    id: row.id,
-    parameterId: row.parameter_id,
-    parameterName: row.parameter_name,
-    method: row.method,
-    qualifier: row.qualifier,
-    valueReported: row.value_reported,
-    valueShown: shownValue(row as never),
-    mdl: num(row.mdl),
-    ml: num(row.ml),
-    unit: row.unit,
-    analysedAt: row.analysed_at?.toISOString() ?? null,
-    analysedLocal: local(row.analysed_at, zone),
-    qcBatchCode: row.qc_batch_code ?? null,
-    flags: row.flags,
+    id: result.id,
+    parameterId: result.parameterId,
+    parameterName: result.parameter.name,
+    method: result.method,
+    qualifier: result.qualifier,
+    valueReported: result.valueReported,
+    valueShown: shownValue({
+      qualifier: result.qualifier,
+      value_reported: result.valueReported,
+      fraction: result.parameter.fraction,
+      method: result.method,
+      unit: result.unit,
+    }),
+    mdl: result.mdl,
+    ml: result.ml,
+    unit: result.unit,
+    analysedAt: result.analysedAt?.toISOString() ?? null,
+    analysedLocal: local(result.analysedAt, zone),
+    qcBatchCode: result.qcBatch?.code ?? null,
+    flags: result.flags,
   };
 }
 
-const fileView = (row: Record<string, any>): StoredFileView | null =>
+interface FileColumns {
+  file_id: string | null;
+  file_name: string | null;
+  media_type: string | null;
+  size_bytes: number | null;
+  sha256: string | null;
+}
+
+const fileView = (row: FileColumns): StoredFileView | null =>
   row.file_id
-    ? { id: row.file_id, fileName: row.file_name, mediaType: row.media_type, sizeBytes: row.size_bytes, sha256: row.sha256 }
+    ? { id: row.file_id, fileName: row.file_name!, mediaType: row.media_type!, sizeBytes: row.size_bytes!, sha256: row.sha256! }
     : null;
 
+interface CertificateSummaryRow extends FileColumns {
+  id: string;
+  site_id: string;
+  site_name: string;
+  lab_name: string;
+  report_number: string;
+  received_on: string;
+  sample_count: number;
+  result_count: number;
+  flags: CertificateSummary['flags'];
+}
+
+// Raw SQL: the list's page and count come with each certificate's sample and result counts in one read.
 const summarySelect = `
-  SELECT c.*, s.name AS site_name, s.time_zone, f.file_name, f.media_type, f.size_bytes, f.sha256,
+  SELECT c.*, s.name AS site_name, f.file_name, f.media_type, f.size_bytes, f.sha256,
          (SELECT count(*)::int FROM lab_sample ls WHERE ls.certificate_id = c.id) AS sample_count,
          (SELECT count(*)::int FROM lab_result lr JOIN lab_sample ls ON ls.id = lr.sample_id WHERE ls.certificate_id = c.id) AS result_count
     FROM lab_certificate c JOIN site s ON s.id = c.site_id LEFT JOIN stored_file f ON f.id = c.file_id`;
 
-function summaryView(row: Record<string, any>): CertificateSummary {
+function summaryView(row: CertificateSummaryRow): CertificateSummary {
   return {
     id: row.id,
     siteId: row.site_id,
@@ -68,55 +101,65 @@ function summaryView(row: Record<string, any>): CertificateSummary {
   };
 }
 
+/** A certificate whole: its file (without the bytes), QC batches, samples and their results. */
 export async function loadCertificate(db: Db, id: string): Promise<CertificateDetail | null> {
-  const [row] = await db.query(`${summarySelect} WHERE c.id = $1`, [id]);
-  if (!row) return null;
-  const zone: string = row.time_zone;
-  const batches = await db.query('SELECT * FROM qc_batch WHERE certificate_id = $1 ORDER BY code', [id]);
-  const samples = await db.query(
-    `SELECT ls.*, d.code AS point_code FROM lab_sample ls JOIN discharge_point d ON d.id = ls.discharge_point_id
-      WHERE ls.certificate_id = $1 ORDER BY ls.collected_at, d.code`,
-    [id],
-  );
-  const results = await db.query(
-    `SELECT lr.*, p.name AS parameter_name, p.fraction, q.code AS qc_batch_code FROM lab_result lr
-       JOIN lab_sample ls ON ls.id = lr.sample_id JOIN parameter p ON p.id = lr.parameter_id
-       LEFT JOIN qc_batch q ON q.id = lr.qc_batch_id
-      WHERE ls.certificate_id = $1 ORDER BY p.name`,
-    [id],
-  );
+  const certificate = await db
+    .getRepository(LabCertificate)
+    .createQueryBuilder('certificate')
+    .innerJoinAndSelect('certificate.site', 'site')
+    .leftJoin('certificate.file', 'file')
+    .addSelect(['file.id', 'file.fileName', 'file.mediaType', 'file.sizeBytes', 'file.sha256'])
+    .where('certificate.id = :id', { id })
+    .getOne();
+  if (!certificate) return null;
+  const zone = certificate.site!.timeZone;
+  const batches = await db.getRepository(QcBatch).find({ where: { certificateId: id }, order: { code: 'ASC' } });
+  const samples = await db
+    .getRepository(LabSample)
+    .find({
+      where: { certificateId: id },
+      relations: { dischargePoint: true },
+      order: { collectedAt: 'ASC', dischargePoint: { code: 'ASC' } },
+    });
+  const results = await db
+    .getRepository(LabResult)
+    .createQueryBuilder('result')
+    .innerJoin('result.sample', 'sample')
+    .innerJoinAndSelect('result.parameter', 'parameter')
+    .leftJoinAndSelect('result.qcBatch', 'qcBatch')
+    .where('sample.certificateId = :id', { id })
+    .orderBy('parameter.name')
+    .getMany();
+  const file = certificate.file;
   return {
-    ...summaryView(row),
-    labAccreditationNumber: row.lab_accreditation_number,
+    id: certificate.id,
+    siteId: certificate.siteId,
+    siteName: certificate.site!.name,
+    labName: certificate.labName,
+    reportNumber: certificate.reportNumber,
+    receivedOn: certificate.receivedOn,
+    sampleCount: samples.length,
+    resultCount: results.length,
+    file: file ? { id: file.id, fileName: file.fileName, mediaType: file.mediaType, sizeBytes: file.sizeBytes, sha256: file.sha256 } : null,
+    flags: certificate.flags,
+    labAccreditationNumber: certificate.labAccreditationNumber,
     timeZone: zone,
-    qcBatches: batches.map((b: Record<string, any>) => ({
-      id: b.id,
-      code: b.code,
-      fraction: b.fraction,
-      oprRecoveryPct: num(b.opr_recovery_pct),
-      msRecoveryPct: num(b.ms_recovery_pct),
-      msdRecoveryPct: num(b.msd_recovery_pct),
-      rpdPct: num(b.rpd_pct),
-      methodBlank: num(b.method_blank),
-      spikeTrue: num(b.spike_true),
-      spikeBackground: num(b.spike_background),
-      msFound: num(b.ms_found),
-      msdFound: num(b.msd_found),
-      flags: b.flags,
-    })),
-    samples: samples.map((s: Record<string, any>) => ({
-      id: s.id,
-      dischargePointId: s.discharge_point_id,
-      dischargePointCode: s.point_code,
-      collectedAt: s.collected_at.toISOString(),
-      collectedLocal: local(s.collected_at, zone)!,
-      collectedBy: s.collected_by,
-      sampleType: s.sample_type,
-      preservationConfirmed: s.preservation_confirmed,
-      temperatureOnReceiptC: num(s.temperature_on_receipt_c),
-      chainOfCustodyNumber: s.chain_of_custody_number,
-      flags: s.flags,
-      results: results.filter((r: Record<string, any>) => r.sample_id === s.id).map((r: Record<string, any>) => resultView(r, zone)),
+    qcBatches: batches.map(({ certificateId: _certificateId, certificate: _certificate, ...batch }) => batch),
+    samples: samples.map((sample) => ({
+      id: sample.id,
+      dischargePointId: sample.dischargePointId,
+      dischargePointCode: sample.dischargePoint!.code,
+      collectedAt: sample.collectedAt.toISOString(),
+      collectedLocal: local(sample.collectedAt, zone)!,
+      collectedBy: sample.collectedBy,
+      sampleType: sample.sampleType,
+      preservationConfirmed: sample.preservationConfirmed,
+      temperatureOnReceiptC: sample.temperatureOnReceiptC,
+      chainOfCustodyNumber: sample.chainOfCustodyNumber,
+      flags: sample.flags,
+      results: results
+        .filter((result) => result.sampleId === sample.id)
+        .map((result) => resultView(result as LabResult & { parameter: Parameter }, zone)),
     })),
   };
 }
@@ -154,6 +197,29 @@ const resultSorts: Record<string, string> = {
   reportNumber: 'c.report_number',
 };
 
+interface ResultPageRow {
+  id: string;
+  parameter_id: string;
+  parameter_name: string;
+  fraction: 'HEM' | 'SGT-HEM' | null;
+  method: string;
+  qualifier: '<' | null;
+  value_reported: string;
+  mdl: string | null;
+  ml: string | null;
+  unit: string;
+  analysed_at: Date | null;
+  qc_batch_code: string | null;
+  flags: ResultView['flags'];
+  certificate_id: string;
+  report_number: string;
+  site_id: string;
+  point_code: string;
+  collected_at: Date;
+  time_zone: string;
+}
+
+// Raw SQL: a page of results across five tables and its count over one filter, read at once.
 export async function pageResults(
   db: Db,
   siteIds: string[],
@@ -192,8 +258,21 @@ export async function pageResults(
       ],
     },
     query,
-    (row: Record<string, any>) => ({
-      ...resultView(row, row.time_zone),
+    (row: ResultPageRow) => ({
+      id: row.id,
+      parameterId: row.parameter_id,
+      parameterName: row.parameter_name,
+      method: row.method,
+      qualifier: row.qualifier,
+      valueReported: row.value_reported,
+      valueShown: shownValue(row),
+      mdl: num(row.mdl),
+      ml: num(row.ml),
+      unit: row.unit,
+      analysedAt: row.analysed_at?.toISOString() ?? null,
+      analysedLocal: local(row.analysed_at, row.time_zone),
+      qcBatchCode: row.qc_batch_code,
+      flags: row.flags,
       certificateId: row.certificate_id,
       reportNumber: row.report_number,
       siteId: row.site_id,
@@ -226,4 +305,28 @@ export async function firstActivePointCode(db: Db, siteId: string): Promise<stri
     [siteId],
   );
   return point?.code;
+}
+
+/** The site a certificate is written for, with the zone its local times are read in. */
+export async function findSiteZone(db: Db, siteId: string): Promise<{ id: string; timeZone: string } | null> {
+  return db.getRepository(Site).findOne({ where: { id: siteId }, select: { id: true, timeZone: true } });
+}
+
+/** Whether the lab already has a certificate with this report number (other than `exceptId`). */
+export function reportNumberTaken(db: Db, report: { labName: string; reportNumber: string }, exceptId?: string): Promise<boolean> {
+  return db.getRepository(LabCertificate).exists({
+    where: { labName: report.labName, reportNumber: report.reportNumber, ...(exceptId ? { id: Not(exceptId) } : {}) },
+  });
+}
+
+export async function insertCertificateRecord(manager: EntityManager, certificate: DeepPartial<LabCertificate>): Promise<string> {
+  return (await manager.save(LabCertificate, manager.create(LabCertificate, certificate))).id;
+}
+
+export async function updateCertificateRecord(
+  manager: EntityManager,
+  id: string,
+  changes: QueryDeepPartialEntity<LabCertificate>,
+): Promise<void> {
+  await manager.update(LabCertificate, { id }, changes);
 }

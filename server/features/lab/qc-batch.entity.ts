@@ -1,4 +1,5 @@
 import { Check, Column, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
+import type { Flag } from '../../contracts/flags.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { LabCertificate } from './lab-certificate.entity.js';
 
@@ -20,7 +21,7 @@ export class QcBatch {
   code: string;
 
   @Column({ type: 'varchar', length: 10 })
-  fraction: string;
+  fraction: 'HEM' | 'SGT-HEM';
 
   @Column({ type: 'numeric', name: 'opr_recovery_pct', precision: 7, scale: 2, nullable: true, transformer: numeric })
   oprRecoveryPct: number | null;
@@ -50,5 +51,5 @@ export class QcBatch {
   msdFound: number | null;
 
   @Column({ type: 'jsonb', default: '[]' })
-  flags: unknown;
+  flags: Flag[];
 }
