@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { Flag } from './flags.js';
+import { type Flag } from './flags.js';
 import { decimalText, isoDate, localDateTime, uuid } from './fields.js';
 import { PageQuery } from './paging.js';
 import { unitNames } from './unit-names.js';

@@ -2,7 +2,8 @@ import { resolve } from 'node:path';
 import type { DataSource } from 'typeorm';
 import { createDataSource } from '../../server/db/data-source.js';
 import { prepareDatabase } from '../../server/db/prepare.js';
-import { findPeriod, summarise } from '../../server/features/periods/periods.service.js';
+import { findPeriod } from '../../server/features/periods/periods.repository.js';
+import { summarise } from '../../server/features/periods/periods.service.js';
 import { localDatabase } from '../../server/scripts/local-database.js';
 
 // `npm run bench`: a site with 10 discharge points × 6 parameters sampled daily for 5 years;

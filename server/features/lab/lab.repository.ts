@@ -1,7 +1,7 @@
 import { DateTime } from 'luxon';
 import { Not, type DataSource, type DeepPartial, type EntityManager, type QueryDeepPartialEntity } from 'typeorm';
 import { Site } from '../../kernel/sites/site.entity.js';
-import { Parameter } from '../parameters/parameter.entity.js';
+import { type Parameter } from '../parameters/parameter.entity.js';
 import { LabCertificate } from './lab-certificate.entity.js';
 import { LabResult } from './lab-result.entity.js';
 import { LabSample } from './lab-sample.entity.js';
@@ -114,13 +114,11 @@ export async function loadCertificate(db: Db, id: string): Promise<CertificateDe
   if (!certificate) return null;
   const zone = certificate.site!.timeZone;
   const batches = await db.getRepository(QcBatch).find({ where: { certificateId: id }, order: { code: 'ASC' } });
-  const samples = await db
-    .getRepository(LabSample)
-    .find({
-      where: { certificateId: id },
-      relations: { dischargePoint: true },
-      order: { collectedAt: 'ASC', dischargePoint: { code: 'ASC' } },
-    });
+  const samples = await db.getRepository(LabSample).find({
+    where: { certificateId: id },
+    relations: { dischargePoint: true },
+    order: { collectedAt: 'ASC', dischargePoint: { code: 'ASC' } },
+  });
   const results = await db
     .getRepository(LabResult)
     .createQueryBuilder('result')

@@ -5,6 +5,32 @@ import { queryArrays } from '../../db/array-rows.js';
 import { inParallel } from '../../db/in-parallel.js';
 import { convert, measuredUnitFor } from '../../domain/units.js';
 
+// Raw SQL throughout: a period's inputs are read set-based, tens of thousands of rows at a time.
+interface LimitRow {
+  id: string;
+  discharge_point_id: string;
+  point_code: string;
+  parameter_id: string;
+  parameter_name: string;
+  parameter_code: string;
+  snc_review_factor: string | null;
+  fraction: string | null;
+  reported_decimals: number | null;
+  statistic: LimitInput['statistic'];
+  value: string;
+  unit: string;
+  frequency_count: number;
+  frequency_per: LimitInput['frequencyPer'];
+}
+
+interface FlowRow {
+  id: string;
+  discharge_point_id: string;
+  day: string;
+  value: string;
+  unit: string;
+}
+
 type Db = DataSource | EntityManager;
 
 export interface PeriodRecord {
@@ -52,13 +78,13 @@ function inUnit(text: string | null, unit: string, target: string): number | nul
  * (through the point/day indexes), each in the base unit of what is measured.
  */
 export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<PeriodInput> {
-  const limitRows = await db.query(
+  const limitRows: LimitRow[] = await db.query(
     `SELECT l.*, d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor, p.fraction
        FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id JOIN parameter p ON p.id = l.parameter_id
       WHERE l.permit_id = $1 ORDER BY d.code, p.name, l.statistic`,
     [period.permitId],
   );
-  const limits: LimitInput[] = limitRows.map((row: Record<string, any>) => ({
+  const limits: LimitInput[] = limitRows.map((row) => ({
     id: row.id,
     dischargePointId: row.discharge_point_id,
     pointCode: row.point_code,
@@ -97,7 +123,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
         WHERE s.discharge_point_id = ANY($1::uuid[]) AND r.parameter_id = ANY($2::uuid[]) AND s.collected_on BETWEEN $3 AND $4`,
         [pointIds, parameterIds, from, period.endsOn],
       ),
-    () =>
+    (): Promise<FlowRow[]> =>
       db.query(
         `SELECT id, discharge_point_id, day::text AS day, value, unit FROM flow_reading WHERE discharge_point_id = ANY($1::uuid[]) AND day BETWEEN $2 AND $3`,
         [pointIds, from, period.endsOn],
@@ -122,7 +148,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     });
   }
 
-  const flows = flowRows.map((row: Record<string, any>) => ({
+  const flows = flowRows.map((row) => ({
     dischargePointId: row.discharge_point_id,
     day: row.day,
     mgd: convert(Number(row.value), row.unit, 'MGD')!,
@@ -133,7 +159,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     const parameters = flowParametersAt.get(limit.dischargePointId) ?? [];
     if (!parameters.includes(limit.parameterId)) flowParametersAt.set(limit.dischargePointId, [...parameters, limit.parameterId]);
   }
-  flowRows.forEach((row: Record<string, any>, i: number) => {
+  flowRows.forEach((row, i) => {
     for (const parameterId of flowParametersAt.get(row.discharge_point_id) ?? []) {
       measurements.push({
         resultId: row.id,
@@ -155,8 +181,4 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     measurements,
     flows,
   };
-}
-
-export async function saveSubmissionDate(manager: EntityManager, periodId: string, submittedOn: string): Promise<void> {
-  await manager.query('UPDATE reporting_period SET submitted_on = $2 WHERE id = $1', [periodId, submittedOn]);
 }

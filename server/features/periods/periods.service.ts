@@ -17,7 +17,19 @@ import { invalid, notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
-import { loadPeriodInput, saveSubmissionDate, type PeriodRecord } from './period-input.repository.js';
+import { loadPeriodInput, type PeriodRecord } from './period-input.repository.js';
+import {
+  allPermitIds,
+  certificateEntryTimes,
+  findPeriod,
+  findPermitCalendar,
+  insertMissingPeriods,
+  listPeriods,
+  periodCounts,
+  saveCompiledSummary,
+  saveSubmissionDate,
+  shipmentsAwaitingSignedCopy,
+} from './periods.repository.js';
 
 type Db = DataSource | EntityManager;
 
@@ -32,55 +44,12 @@ export const summaryCautions = [
   'Daily discharges, averages and non-detects follow the definitions of 40 CFR 122.2 and the permit settings stated here; a permit may define them differently.',
 ];
 
-const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at,
-    rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, p.late_report_days, p.non_detect_policy, p.mass_loading_factor,
-    p.daily_max_applies_to_each_grab, p.snc_window, (now() AT TIME ZONE s.time_zone)::date::text AS today
-  FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
-const record = (row: Record<string, any>): PeriodRecord => ({
-  id: row.id,
-  permitId: row.permit_id,
-  siteId: row.site_id,
-  timeZone: row.time_zone,
-  startsOn: row.starts_on,
-  endsOn: row.ends_on,
-  dueOn: row.due_on,
-  status: row.status,
-  permitKind: row.permit_kind,
-  permitNumber: row.permit_number,
-  lateReportDays: row.late_report_days,
-  submittedOn: row.submitted_on,
-  today: row.today,
-  settings: {
-    kind: row.permit_kind,
-    nonDetectPolicy: row.non_detect_policy,
-    massLoadingFactor: Number(row.mass_loading_factor),
-    dailyMaxAppliesToEachGrab: row.daily_max_applies_to_each_grab,
-    sncWindow: row.snc_window,
-  },
-});
-
 /** Creates the permit's periods up to the one running today; idempotent. */
 export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
-  const [permit] = await db.query(
-    'SELECT id, site_id, effective_from::text, effective_to::text, reporting_frequency, report_due_days FROM permit WHERE id = $1',
-    [permitId],
-  );
+  const permit = await findPermitCalendar(db, permitId);
   if (!permit) return;
-  const periods = reportingPeriods(
-    {
-      effectiveFrom: permit.effective_from,
-      effectiveTo: permit.effective_to,
-      reportingFrequency: permit.reporting_frequency,
-      reportDueDays: permit.report_due_days,
-    },
-    await siteToday(db, permit.site_id),
-  );
-  if (periods.length === 0) return;
-  await db.query(
-    `INSERT INTO reporting_period (permit_id, starts_on, ends_on, due_on)
-     SELECT $1, * FROM unnest($2::date[], $3::date[], $4::date[]) ON CONFLICT (permit_id, starts_on) DO NOTHING`,
-    [permitId, periods.map((p) => p.startsOn), periods.map((p) => p.endsOn), periods.map((p) => p.dueOn)],
-  );
+  const periods = reportingPeriods(permit, await siteToday(db, permit.siteId));
+  if (periods.length > 0) await insertMissingPeriods(db, permitId, periods);
 }
 
 /**
@@ -88,46 +57,21 @@ export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
  * period exists once it begins without any read having to write.
  */
 export async function ensureAllPeriods(db: Db): Promise<void> {
-  for (const permit of await db.query('SELECT id FROM permit')) await ensurePeriods(db, permit.id);
-}
-
-export async function findPeriod(db: Db, id: string): Promise<PeriodRecord | null> {
-  const [row] = await db.query(`${periodSelect} WHERE rp.id = $1`, [id]);
-  return row ? record(row) : null;
-}
-
-export async function listPeriods(db: Db, siteIds: string[], permitId?: string) {
-  const rows = await db.query(
-    `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY p.number, rp.starts_on DESC`,
-    [siteIds, permitId ?? null],
-  );
-  // The list answers what a period is, not how its permit computes (that is in the summary).
-  return rows.map((row: Record<string, any>) => {
-    const { settings: _settings, ...period } = record(row);
-    return { ...period, compiledAt: row.compiled_at?.toISOString() ?? null };
-  });
+  for (const permitId of await allPermitIds(db)) await ensurePeriods(db, permitId);
 }
 
 /** Oil collected and shipped in the period and on hand at its end, follow-ups open at the site, and results the lab checks flagged. */
 async function periodTotals(db: Db, period: PeriodRecord) {
-  const [totals] = await db.query(
-    `SELECT (SELECT coalesce(sum(volume_litres), 0) FROM oil_log_entry WHERE site_id = $1 AND collected_on BETWEEN $2 AND $3) AS collected,
-            (SELECT coalesce(sum(quantity_litres), 0) FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3) AS shipped,
-            (SELECT count(*)::int FROM follow_up WHERE site_id = $1 AND status = 'open') AS open_follow_ups,
-            (SELECT count(*)::int FROM lab_result r JOIN lab_sample s ON s.id = r.sample_id
-              WHERE s.discharge_point_id IN (SELECT id FROM discharge_point WHERE site_id = $1)
-                AND s.collected_on BETWEEN $2 AND $3 AND r.flag_codes <> '{}') AS lab_flags`,
-    [period.siteId, period.startsOn, period.endsOn],
-  );
+  const totals = await periodCounts(db, period);
   const balance = await oilBalanceInput(db, period.siteId, period.endsOn);
   return {
     oil: {
-      collectedLitres: Number(totals.collected),
-      shippedLitres: Number(totals.shipped),
+      collectedLitres: totals.collectedLitres,
+      shippedLitres: totals.shippedLitres,
       onHandAtEndLitres: balance ? oilOnHand(balance).litres : null,
     },
-    openFollowUps: totals.open_follow_ups as number,
-    labFlagCount: totals.lab_flags as number,
+    openFollowUps: totals.openFollowUps,
+    labFlagCount: totals.labFlagCount,
   };
 }
 
@@ -175,13 +119,7 @@ export async function compileWithin(
   const certificateIds = [
     ...new Set(summary.rows.flatMap((row) => row.exceedances.map((e) => e.certificateIds[0]).filter((id): id is string => Boolean(id)))),
   ];
-  const enteredAt = new Map<string, Date>(
-    certificateIds.length === 0
-      ? []
-      : (await manager.query('SELECT id, created_at FROM lab_certificate WHERE id = ANY($1::uuid[])', [certificateIds])).map(
-          (row: { id: string; created_at: Date }) => [row.id, row.created_at],
-        ),
-  );
+  const enteredAt = await certificateEntryTimes(manager, certificateIds);
   for (const row of summary.rows) {
     for (const exceedance of row.exceedances) {
       const awareAt =
@@ -212,19 +150,15 @@ export async function compileWithin(
     }
   }
   await openSiteDeadlines(manager, period);
-  const [saved] = await manager.query(
-    `UPDATE reporting_period SET status = CASE WHEN status = 'open' THEN 'compiled' ELSE status END,
-    compiled_at = now(), summary = $2 WHERE id = $1 RETURNING status`,
-    [periodId, JSON.stringify(summary)],
-  );
+  const status = await saveCompiledSummary(manager, periodId, summary);
   await recordTrail(manager, user, {
     action: 'compile',
     entity: 'reporting-period',
     entityId: periodId,
     siteId: period.siteId,
-    after: { status: saved[0].status, exceeded: summary.rows.filter((r) => r.exceeded).length },
+    after: { status, exceeded: summary.rows.filter((r) => r.exceeded).length },
   });
-  return { ...summary, status: saved[0].status };
+  return { ...summary, status };
 }
 
 /**
@@ -234,20 +168,15 @@ export async function compileWithin(
 async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): Promise<void> {
   const today = period.today;
   const endOfDay = (day: string) => DateTime.fromISO(day, { zone: period.timeZone }).endOf('day').toJSDate();
-  const shipments = await manager.query(
-    `SELECT h.id, h.document_number, h.shipped_on::text AS shipped_on, s.generator_status, s.manifest_rule
-       FROM shipment h JOIN site s ON s.id = h.site_id WHERE h.site_id = $1 AND h.signed_copy_received_on IS NULL`,
-    [period.siteId],
-  );
-  for (const shipment of shipments) {
-    for (const deadline of manifestDeadlines(shipment.generator_status, shipment.manifest_rule, shipment.shipped_on)) {
+  for (const shipment of await shipmentsAwaitingSignedCopy(manager, period.siteId)) {
+    for (const deadline of manifestDeadlines(shipment.generatorStatus, shipment.manifestRule, shipment.shippedOn)) {
       if (daysLeft(deadline.dueOn, today) > 7) continue;
       await openFollowUp(manager, {
         siteId: period.siteId,
         kind: deadline.step,
         sourceEntity: 'shipment',
         sourceId: shipment.id,
-        title: `${stepTitles[deadline.step]}: signed copy of ${shipment.document_number} not back (${deadline.source})`,
+        title: `${stepTitles[deadline.step]}: signed copy of ${shipment.documentNumber} not back (${deadline.source})`,
         dueAt: endOfDay(deadline.dueOn),
       });
     }

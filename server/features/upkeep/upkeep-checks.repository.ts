@@ -1,7 +1,7 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { UpkeepCheckRequest, UpkeepCheckView } from '../../contracts/oil.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
-import { User } from '../../kernel/people/user.entity.js';
+import { type User } from '../../kernel/people/user.entity.js';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { UpkeepCheck } from './upkeep-check.entity.js';
 
