@@ -30,7 +30,7 @@ function printSummaryLine(resultsFile: string): void {
 }
 
 const database = await localDatabase(projectDir, 'decant_test');
-let exitCode = 1;
+let exitCode: number;
 try {
   ensureChromium();
   // Caches of tsx and the browser stay inside the project.

@@ -31,7 +31,7 @@ function csvRow(report: string, overrides: Partial<Record<string, string>> = {})
   };
   return importColumns.map((column) => values[column.key]).join(',');
 }
-const binary = (res: NodeJS.ReadableStream & { on: Function }, done: (error: Error | null, body: Buffer) => void) => {
+const binary = (res: NodeJS.ReadableStream, done: (error: Error | null, body: Buffer) => void) => {
   const chunks: Buffer[] = [];
   res.on('data', (chunk: Buffer) => chunks.push(chunk));
   res.on('end', () => done(null, Buffer.concat(chunks)));

@@ -8,9 +8,27 @@ import { likelyUndersized, ratingLitresPerHour } from '../../domain/oil-collecti
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
 
+interface EquipmentRow {
+  id: string;
+  site_id: string;
+  name: string;
+  kind: EquipmentView['kind'];
+  serves: string;
+  rated_capacity: string;
+  rated_unit: EquipmentView['ratedUnit'];
+  medium_material: string | null;
+  upkeep_interval_days: number;
+  specific_gravity: string;
+  active: boolean;
+  last_checked_on: string | null;
+  average_lph: string | null;
+  last_30: string;
+}
+
 /** Equipment with what the floor needs to know: upkeep due, running rate against rating. */
 export async function findEquipment(db: Db, where: { siteIds: string[]; id?: string }, today: string): Promise<EquipmentView[]> {
-  const rows = await db.query(
+  // Raw SQL: each piece of equipment with its last check and running rates, aggregated in one read.
+  const rows: EquipmentRow[] = await db.query(
     `SELECT e.*,
             (SELECT max(checked_on) FROM upkeep_check u WHERE u.equipment_id = e.id) AS last_checked_on,
             (SELECT sum(volume_litres) / nullif(sum(hours_run), 0) FROM oil_log_entry o
@@ -21,7 +39,7 @@ export async function findEquipment(db: Db, where: { siteIds: string[]; id?: str
       ORDER BY e.active DESC, e.name`,
     [where.siteIds, where.id ?? null, today],
   );
-  return rows.map((row: Record<string, any>) => {
+  return rows.map((row) => {
     const rated = ratingLitresPerHour(Number(row.rated_capacity), row.rated_unit);
     const average = n(row.average_lph);
     const nextDue = row.last_checked_on

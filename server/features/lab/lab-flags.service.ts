@@ -2,6 +2,16 @@ import type { EntityManager } from 'typeorm';
 import type { Flag } from '../../contracts/flags.js';
 import { checkQcBatch, checkResult, checkSample, type LimitFacts, type SampleFacts } from '../../domain/lab-checks.js';
 
+interface LimitRow {
+  parameter_id: string;
+  statistic: LimitFacts['statistic'];
+  value: string;
+  unit: string;
+  sample_type: LimitFacts['sampleType'];
+  effective_from: string;
+  effective_to: string | null;
+}
+
 interface ResultFactsRow {
   id: string;
   sample_id: string;
@@ -148,7 +158,7 @@ export function limitsInForce(manager: EntityManager): LimitsInForce {
              FROM permit_limit l JOIN permit p ON p.id = l.permit_id WHERE l.discharge_point_id = $1`,
           [pointId],
         )
-        .then((rows: Array<Record<string, any>>) =>
+        .then((rows: LimitRow[]) =>
           rows.map((row) => ({
             parameterId: row.parameter_id,
             statistic: row.statistic,

@@ -24,6 +24,7 @@ const statusSql = (at: number) => `CASE WHEN s.signed_copy_received_on IS NOT NU
   WHEN ${firstStepSql(at)} IS NOT NULL AND (now() AT TIME ZONE st.time_zone)::date > s.shipped_on + ${firstStepSql(at)} THEN 'overdue'
   ELSE 'awaiting-signed-copy' END`;
 
+// Raw SQL: the signed-copy status is computed in the query so lists can filter and sort by it.
 const select = (
   at: number,
 ) => `SELECT s.*, st.generator_status, st.manifest_rule, (now() AT TIME ZONE st.time_zone)::date::text AS today, ${statusSql(at)} AS status,
@@ -31,10 +32,40 @@ const select = (
                 FROM shipment_file sf JOIN stored_file f ON f.id = sf.file_id WHERE sf.shipment_id = s.id), '[]') AS files
   FROM shipment s JOIN site st ON st.id = s.site_id`;
 
-function view(row: Record<string, any>): ShipmentView {
+interface ShipmentRow {
+  id: string;
+  site_id: string;
+  shipped_on: string;
+  document_kind: ShipmentView['documentKind'];
+  document_number: string;
+  transporter_name: string;
+  transporter_epa_id: string;
+  receiver_name: string;
+  receiver_epa_id: string;
+  waste_description: string;
+  quantity: string;
+  quantity_unit: ShipmentView['quantityUnit'];
+  quantity_litres: string;
+  total_halogens_ppm: string | null;
+  burned_as_fuel: boolean;
+  arsenic_ppm: string | null;
+  cadmium_ppm: string | null;
+  chromium_ppm: string | null;
+  lead_ppm: string | null;
+  flash_point_f: string | null;
+  signed_copy_received_on: string | null;
+  status: ShipmentView['status'];
+  flags: ShipmentView['flags'];
+  files: ShipmentView['files'];
+  generator_status: GeneratorStatus;
+  manifest_rule: ManifestRule;
+  today: string;
+}
+
+function view(row: ShipmentRow): ShipmentView {
   const deadlines = row.signed_copy_received_on
     ? []
-    : manifestDeadlines(row.generator_status as GeneratorStatus, row.manifest_rule as ManifestRule, row.shipped_on).map((d) => ({
+    : manifestDeadlines(row.generator_status, row.manifest_rule, row.shipped_on).map((d) => ({
         ...d,
         daysLeft: daysLeft(d.dueOn, row.today),
       }));
@@ -68,7 +99,7 @@ function view(row: Record<string, any>): ShipmentView {
 }
 
 export async function findShipment(db: Db, id: string): Promise<ShipmentView | null> {
-  const [row] = await db.query(`${select(2)} WHERE s.id = $1`, [id, ...firstStepParams()]);
+  const [row]: ShipmentRow[] = await db.query(`${select(2)} WHERE s.id = $1`, [id, ...firstStepParams()]);
   return row ? view(row) : null;
 }
 

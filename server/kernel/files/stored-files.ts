@@ -18,6 +18,7 @@ export interface Upload {
  * folders, carries control characters or is absurdly long is refused rather than cleaned.
  */
 function checkFileName(name: string): void {
+  // eslint-disable-next-line no-control-regex -- refusing control characters is the point
   if (!name || name.length > 200 || /[\\/\x00-\x1f\x7f]/.test(name) || name.includes('..') || /^[.\s]/.test(name)) {
     throw invalid({ file: 'The file name is not acceptable (no folders, no control characters, at most 200 characters)' });
   }
