@@ -6,3 +6,8 @@ export const SignInQuery = z.object({
   loginHint: z.email().max(254).optional(),
 });
 export type SignInQuery = z.output<typeof SignInQuery>;
+
+/** What the sign-in page may show: the demo accounts, in demo mode only. */
+export interface SignInOptions {
+  demo: { password: string; accounts: Array<{ email: string; name: string; role: string; duty: string }> } | null;
+}

@@ -145,3 +145,14 @@ export type OpeningBalanceRequest = z.output<typeof OpeningBalanceRequest>;
 
 export const UpkeepCheckListQuery = z.object({ equipmentId: uuid });
 export type UpkeepCheckListQuery = z.output<typeof UpkeepCheckListQuery>;
+
+/** Oil on hand at a site: opening balance + collected − shipped since, against its storage capacity. */
+export interface OilOnHandView {
+  openingLitres: number;
+  openingOn: string | null;
+  collectedLitres: number;
+  shippedLitres: number;
+  capacityGallons: number | null;
+  onHandLitres: number;
+  flags: Flag[];
+}

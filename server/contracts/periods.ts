@@ -118,3 +118,25 @@ export type PeriodListQuery = z.output<typeof PeriodListQuery>;
 /** When the periodic report went to the control authority. */
 export const SubmissionRequest = z.object({ submittedOn: isoDate });
 export type SubmissionRequest = z.output<typeof SubmissionRequest>;
+
+export const periodStatuses = ['open', 'compiled', 'signed', 'amended'] as const;
+export type PeriodStatus = (typeof periodStatuses)[number];
+
+/** A reporting period as the periods list shows it: what it is, not how its permit computes. */
+export interface PeriodListItem {
+  id: string;
+  permitId: string;
+  permitNumber: string;
+  permitKind: 'pretreatment' | 'npdes';
+  siteId: string;
+  timeZone: string;
+  startsOn: string;
+  endsOn: string;
+  dueOn: string;
+  status: PeriodStatus;
+  lateReportDays: number;
+  submittedOn: string | null;
+  /** The site's today when the list was read. */
+  today: string;
+  compiledAt: string | null;
+}

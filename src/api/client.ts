@@ -1,3 +1,4 @@
+import type { input, ZodType } from 'zod';
 import type { ErrorBody } from '@contracts/errors.js';
 
 /** An error answered by the API, in its one shape. `fields` maps input names to messages. */
@@ -84,3 +85,6 @@ export const api = {
   put: <T>(path: string, body: unknown) => request<T>('PUT', path, { body }),
   delete: <T>(path: string) => request<T>('DELETE', path),
 };
+
+/** What a request body may carry: the contract schema's input (fields with defaults may be left out). */
+export type RequestOf<S extends ZodType> = input<S>;

@@ -7,7 +7,7 @@ import type {
 } from '@contracts/lab.js';
 import type { ImportReport } from '@contracts/lab-import.js';
 import type { Page } from '@contracts/paging.js';
-import { api, upload, type Query } from './client';
+import { api, upload, type Query, type RequestOf } from './client';
 
 export const labApi = {
   certificates: (query: Query) => api.get<Page<CertificateSummary>>('/lab-certificates', query),
@@ -16,7 +16,7 @@ export const labApi = {
   fileUrl: (id: string, download = false) => `/api/lab-certificates/${id}/file${download ? '?download=1' : ''}`,
   create: (body: CreateLabCertificateRequest, file: File | null, onProgress?: (fraction: number) => void) =>
     upload<CertificateDetail>('POST', '/lab-certificates', { certificate: JSON.stringify(body), file }, onProgress),
-  update: (id: string, body: UpdateLabCertificateRequest) => api.put<CertificateDetail>(`/lab-certificates/${id}`, body),
+  update: (id: string, body: RequestOf<typeof UpdateLabCertificateRequest>) => api.put<CertificateDetail>(`/lab-certificates/${id}`, body),
   attachFile: (id: string, file: File, onProgress?: (fraction: number) => void) =>
     upload<CertificateDetail>('PUT', `/lab-certificates/${id}/file`, { file }, onProgress),
   templateUrl: (siteId: string, format: 'xlsx' | 'csv') => `/api/lab-certificates/import/template?siteId=${siteId}&format=${format}`,

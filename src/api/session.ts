@@ -1,12 +1,12 @@
-import type { Me } from '@contracts/users.js';
+import type { SignInOptions } from '@contracts/auth.js';
+import type { Me, UnitSystem } from '@contracts/users.js';
 import { api } from './client';
 
-export interface SignInOptions {
-  demo: { password: string; accounts: Array<{ email: string; name: string; role: string; duty: string }> } | null;
-}
+export type { SignInOptions };
 
 export const sessionApi = {
   me: () => api.get<Me>('/me'),
+  setUnitSystem: (unitSystem: UnitSystem) => api.patch<void>('/me/preferences', { unitSystem }),
   options: () => api.get<SignInOptions>('/auth/options'),
   signOut: () => api.post<{ redirectTo: string }>('/auth/sign-out'),
   signInUrl: (returnTo?: string, loginHint?: string) => {

@@ -2,7 +2,7 @@ import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import { can as roleCan, type Action } from '@contracts/permissions.js';
 import type { Me } from '@contracts/users.js';
-import { ApiError, api } from '@/api/client';
+import { ApiError } from '@/api/client';
 import { sessionApi } from '@/api/session';
 
 /** Who is signed in, what they may do, and which site they are looking at. */
@@ -46,7 +46,7 @@ export const useSessionStore = defineStore('session', () => {
 
   /** Saves the user's unit choice on the server, so it follows them to every device. */
   async function setUnitSystem(unitSystem: 'us' | 'metric'): Promise<void> {
-    await api.patch<void>('/me/preferences', { unitSystem });
+    await sessionApi.setUnitSystem(unitSystem);
     if (me.value) me.value = { ...me.value, user: { ...me.value.user, unitSystem } };
   }
 

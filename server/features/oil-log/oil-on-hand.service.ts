@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { OpeningBalanceRequest } from '../../contracts/oil.js';
+import type { OilOnHandView, OpeningBalanceRequest } from '../../contracts/oil.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteVisible } from '../../auth/site-access.js';
 import { oilOnHand } from '../../domain/oil-collection.js';
@@ -11,7 +11,7 @@ import { findOpeningBalance, oilBalanceInput, saveOpeningBalance } from './oil-o
 export class OilOnHandService {
   constructor(private readonly dataSource: DataSource) {}
 
-  async get(user: CurrentUser, siteId: string) {
+  async get(user: CurrentUser, siteId: string): Promise<OilOnHandView> {
     assertSiteVisible(user, siteId, 'Site');
     const { openingOn, ...input } = (await oilBalanceInput(this.dataSource, siteId))!;
     const balance = oilOnHand(input);

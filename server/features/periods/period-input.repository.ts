@@ -1,3 +1,4 @@
+import type { PeriodStatus } from '../../contracts/periods.js';
 import type { DataSource, EntityManager } from 'typeorm';
 import { sncWindows } from '../../domain/period/significant-noncompliance.js';
 import type { LimitInput, Measurement, PeriodInput, PermitSettings } from '../../domain/period/types.js';
@@ -41,7 +42,7 @@ export interface PeriodRecord {
   startsOn: string;
   endsOn: string;
   dueOn: string;
-  status: string;
+  status: PeriodStatus;
   permitKind: 'pretreatment' | 'npdes';
   permitNumber: string;
   /** How the permit says its figures are worked out, read with the period. */

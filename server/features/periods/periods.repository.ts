@@ -1,5 +1,5 @@
 import { In, IsNull, type DataSource, type EntityManager } from 'typeorm';
-import type { PeriodSummary } from '../../contracts/periods.js';
+import type { PeriodListItem, PeriodStatus, PeriodSummary } from '../../contracts/periods.js';
 import type { GeneratorStatus, ManifestRule } from '../../domain/manifest-deadlines.js';
 import type { ReportingPeriod as PeriodDates } from '../../domain/reporting-periods.js';
 import { Site } from '../../kernel/sites/site.entity.js';
@@ -19,7 +19,7 @@ interface PeriodRow {
   starts_on: string;
   ends_on: string;
   due_on: string;
-  status: string;
+  status: PeriodStatus;
   compiled_at: Date | null;
   submitted_on: string | null;
   permit_kind: PeriodRecord['permitKind'];
@@ -65,7 +65,7 @@ export async function findPeriod(db: Db, id: string): Promise<PeriodRecord | nul
   return row ? record(row) : null;
 }
 
-export async function listPeriods(db: Db, siteIds: string[], permitId?: string) {
+export async function listPeriods(db: Db, siteIds: string[], permitId?: string): Promise<PeriodListItem[]> {
   const rows: PeriodRow[] = await db.query(
     `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY p.number, rp.starts_on DESC`,
     [siteIds, permitId ?? null],

@@ -1,4 +1,5 @@
 import { Check, Column, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
+import type { PeriodStatus } from '../../contracts/periods.js';
 import { Permit } from '../permits/permit.entity.js';
 
 @Check(
@@ -29,7 +30,7 @@ export class ReportingPeriod {
   dueOn: string;
 
   @Column({ type: 'varchar', length: 10, default: 'open' })
-  status: string;
+  status: PeriodStatus;
 
   @Column({ type: 'timestamptz', name: 'compiled_at', nullable: true })
   compiledAt: Date | null;

@@ -27,11 +27,12 @@ export const blankSample = (dischargePointId = ''): DraftSample => ({
   results: [blankResult()],
 });
 
-export const blankDraft = (): Draft => ({
+/** An empty certificate; `today` is the site's local date, the usual day a lab's report arrives. */
+export const blankDraft = (today: string): Draft => ({
   labName: '',
   labAccreditationNumber: '',
   reportNumber: '',
-  receivedOn: new Date().toISOString().slice(0, 10),
+  receivedOn: today,
   qcBatches: [],
   samples: [blankSample()],
 });

@@ -1,0 +1,10 @@
+import type { FollowUpView } from '@contracts/follow-ups.js';
+import type { Page } from '@contracts/paging.js';
+import { api, upload, type Query } from './client';
+
+export const followUpsApi = {
+  page: (query: Query) => api.get<Page<FollowUpView>>('/follow-ups', query),
+  close: (id: string, note: string, evidence: File | null) =>
+    upload<FollowUpView>('POST', `/follow-ups/${id}/close`, { note, file: evidence }),
+  fileUrl: (id: string) => `/api/follow-ups/${id}/file`,
+};
