@@ -4,7 +4,7 @@ import { localDatabase } from './local-database.js';
 import { run, runStatus } from './processes.js';
 
 // `npm test`: the same set-up as `npm start` against the test database, then type checks and
-// every Vitest project. Stops the database afterwards if it started it.
+// lint, and every Vitest project. Stops the database afterwards if it started it.
 const projectDir = resolve(import.meta.dirname, '../..');
 const bin = (name: string) => resolve(projectDir, 'node_modules/.bin', name);
 
@@ -39,6 +39,9 @@ try {
   const env = { ...process.env, DATABASE_URL: database.url, NODE_ENV: 'test', TMPDIR: tmp };
   console.log('Type checking…');
   run('npm', ['run', '--silent', 'typecheck'], { env });
+  // The shape of the code (import boundaries, HTTP-only routes) and its format fail the run too.
+  console.log('Linting…');
+  run('npm', ['run', '--silent', 'lint'], { env });
   console.log('Building the client for the browser tests…');
   run(bin('vite'), ['build', '--logLevel', 'warn'], { env });
   const resultsFile = resolve(tmp, 'vitest-results.json');
