@@ -13,7 +13,7 @@ export interface TableOptions {
  * Server paging for a v-data-table-server: hand it the table's options and it fetches the page,
  * keeping items, total and loading. `filters` re-fetch from page 1 when they change.
  */
-export function usePagedQuery<T>(fetchPage: (query: Query) => Promise<Page<T>>, filters: Ref<Query> = ref({})) {
+export function usePagedQuery<T>(fetchPage: (query: Query) => Promise<Page<T>>, filters: Readonly<Ref<Query>> = ref({})) {
   const items = shallowRef<T[]>([]);
   const total = ref(0);
   const loading = ref(false);

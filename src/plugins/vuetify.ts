@@ -3,6 +3,7 @@ import '@fontsource/noto-sans/latin-600.css';
 import '@fontsource/noto-sans/latin-700.css';
 import 'vuetify/styles';
 import { createVuetify, type ThemeDefinition } from 'vuetify';
+import { VAlert, VBtn } from 'vuetify/components';
 import { aliases, mdi } from 'vuetify/iconsets/mdi-svg';
 
 // Water and oil: deep teal for the water, warm amber for the oil, paper for the page.
@@ -43,6 +44,9 @@ const decantDark: ThemeDefinition = {
 export default createVuetify({
   theme: { defaultTheme: 'decantLight', themes: { decantLight, decantDark } },
   icons: { defaultSet: 'mdi', aliases, sets: { mdi } },
+  // Named variants used across screens: the one filled button that does a form's main action,
+  // and the quiet inline note (hazards, locks, cautions).
+  aliases: { VBtnPrimary: VBtn, VAlertNote: VAlert },
   // Dense, calm defaults once here, so templates do not repeat props.
   defaults: {
     VTextField: { variant: 'outlined', density: 'comfortable', color: 'primary' },
@@ -54,5 +58,7 @@ export default createVuetify({
     // Lists open at 25 rows, one of the page sizes they offer, and say plainly when nothing matches.
     VDataTableServer: { density: 'compact', hover: true, itemsPerPage: 25, noDataText: 'Nothing here for this site and these filters.' },
     VChip: { size: 'small', rounded: 'lg' },
+    VBtnPrimary: { color: 'primary', variant: 'flat', rounded: 'lg' },
+    VAlertNote: { variant: 'tonal', density: 'compact' },
   },
 });
