@@ -1,11 +1,16 @@
 import { z } from 'zod';
 
-/** Field schemas shared by several contracts. */
-export const isoDate = z.iso.date('Use the form YYYY-MM-DD');
+// Field schemas shared by several contracts.
+
+/** A calendar date of this trade's records: year 1900 to 2199 (year 0 does not exist in PostgreSQL). */
+export const isoDate = z.iso
+  .date('Use the form YYYY-MM-DD')
+  .refine((day) => day >= '1900-01-01' && day <= '2199-12-31', 'Use a date between 1900 and 2199');
 /** A local date-time of a site, without offset: the site's time zone gives its meaning. */
 export const localDateTime = z
   .string()
-  .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?$/, 'Use the form YYYY-MM-DDTHH:mm (site local time)');
+  .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?$/, 'Use the form YYYY-MM-DDTHH:mm (site local time)')
+  .refine((text) => text >= '1900' && text < '2200', 'Use a date between 1900 and 2199');
 
 export const timeZone = z.string().refine((zone) => {
   try {
@@ -20,7 +25,9 @@ export const timeZone = z.string().refine((zone) => {
 export const decimalText = z
   .union([z.number().finite(), z.string().trim()])
   .transform((value) => String(value))
-  .refine((text) => /^-?(\d+\.?\d*|\.\d+)$/.test(text), 'Not a number');
+  .refine((text) => /^-?(\d+\.?\d*|\.\d+)$/.test(text), { message: 'Not a number', abort: true })
+  // Stored as numeric(18,6): 12 digits before the point at most.
+  .refine((text) => /^-?0*\d{0,12}(\.\d*)?$/.test(text), 'Too large to be a measurement');
 
 export const uuid = z.uuid('Not a valid id');
 

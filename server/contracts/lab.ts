@@ -1,11 +1,12 @@
 import { z } from 'zod';
 import { type Flag } from './flags.js';
 import { decimalText, isoDate, localDateTime, uuid } from './fields.js';
-import { PageQuery } from './paging.js';
+import { sortedPageQuery } from './paging.js';
 import { unitNames } from './unit-names.js';
 
 const optionalPercent = z.number().finite().min(0).max(1000).nullable().default(null);
-const optionalAmount = z.number().finite().min(0).nullable().default(null);
+/** Column numeric(12,4): at most 8 digits before the point. */
+const optionalAmount = z.number().finite().min(0).max(99_999_999, 'Too large').nullable().default(null);
 
 export const QcBatchInput = z.object({
   code: z.string().trim().min(1, 'Enter the batch code').max(60),
@@ -15,7 +16,7 @@ export const QcBatchInput = z.object({
   msdRecoveryPct: optionalPercent,
   rpdPct: optionalPercent,
   methodBlank: optionalAmount,
-  spikeTrue: z.number().finite().positive().nullable().default(null),
+  spikeTrue: z.number().finite().positive().max(99_999_999, 'Too large').nullable().default(null),
   spikeBackground: optionalAmount,
   msFound: optionalAmount,
   msdFound: optionalAmount,
@@ -27,8 +28,8 @@ export const ResultInput = z
     method: z.string().trim().min(1, 'Name the method').max(40),
     qualifier: z.literal('<').nullable().default(null),
     value: decimalText,
-    mdl: z.number().finite().min(0).nullable().default(null),
-    ml: z.number().finite().min(0).nullable().default(null),
+    mdl: z.number().finite().min(0).max(99_999_999, 'Too large').nullable().default(null),
+    ml: z.number().finite().min(0).max(99_999_999, 'Too large').nullable().default(null),
     unit: z.enum(unitNames as [string, ...string[]], 'Not a unit Decant knows'),
     analysedAt: localDateTime.nullable().default(null),
     qcBatchCode: z.string().trim().max(60).nullable().default(null),
@@ -63,12 +64,14 @@ export const UpdateLabCertificateRequest = CertificateFields.omit({ siteId: true
 export type CreateLabCertificateRequest = z.infer<typeof CreateLabCertificateRequest>;
 export type UpdateLabCertificateRequest = z.infer<typeof UpdateLabCertificateRequest>;
 
-export const CertificateListQuery = PageQuery.extend({
+export const certificateSortKeys = ['receivedOn', 'reportNumber', 'labName'] as const;
+export const CertificateListQuery = sortedPageQuery(certificateSortKeys).extend({
   siteId: uuid.optional(),
   flagged: z.enum(['true', 'false']).optional(),
 });
 
-export const ResultListQuery = PageQuery.extend({
+export const resultSortKeys = ['collectedLocal', 'parameterName', 'valueShown', 'dischargePointCode', 'reportNumber'] as const;
+export const ResultListQuery = sortedPageQuery(resultSortKeys).extend({
   siteId: uuid.optional(),
   dischargePointId: uuid.optional(),
   parameterId: uuid.optional(),

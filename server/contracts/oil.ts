@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import type { Flag } from './flags.js';
 import { isoDate, updateOf, uuid } from './fields.js';
-import { PageQuery } from './paging.js';
+import { sortedPageQuery } from './paging.js';
 
 export const equipmentKinds = [
   'belt-skimmer',
@@ -77,7 +77,8 @@ export interface OilLogEntryView {
   createdAt: string;
 }
 
-export const OilLogQuery = PageQuery.extend({
+export const oilLogSortKeys = ['collectedOn', 'volumeLitres', 'equipmentName'] as const;
+export const OilLogQuery = sortedPageQuery(oilLogSortKeys).extend({
   siteId: uuid.optional(),
   equipmentId: uuid.optional(),
   from: isoDate.optional(),

@@ -83,7 +83,8 @@ export const LimitFields = z.object({
   dischargePointId: uuid,
   parameterId: uuid,
   statistic: z.enum(limitStatistics),
-  value: z.number().finite().min(0),
+  /** Column numeric(14,4): at most 10 digits before the point. */
+  value: z.number().finite().min(0).max(9_999_999_999, 'Too large'),
   unit: limitUnit,
   frequencyCount: z.number().int().min(1).max(1000),
   frequencyPer: z.enum(['day', 'week', 'month', 'quarter']),

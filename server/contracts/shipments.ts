@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { Flag } from './flags.js';
 import { isoDate, updateOf, uuid } from './fields.js';
 import { EPA_ID_NUMBER, MANIFEST_TRACKING_NUMBER } from './manifest-formats.js';
-import { PageQuery } from './paging.js';
+import { sortedPageQuery } from './paging.js';
 
 const epaId = z.string().trim().toUpperCase().regex(EPA_ID_NUMBER, '12 characters: 2 letters, then letters or digits');
 const ppm = z.number().finite().min(0).max(1_000_000).nullable().default(null);
@@ -47,7 +47,11 @@ export const UpdateShipmentRequest = updateOf(ShipmentFields.omit({ siteId: true
 export type CreateShipmentRequest = z.infer<typeof CreateShipmentRequest>;
 
 export const shipmentStatuses = ['awaiting-signed-copy', 'overdue', 'complete'] as const;
-export const ShipmentQuery = PageQuery.extend({ siteId: uuid.optional(), status: z.enum(shipmentStatuses).optional() });
+export const shipmentSortKeys = ['shippedOn', 'documentNumber', 'quantityLitres'] as const;
+export const ShipmentQuery = sortedPageQuery(shipmentSortKeys).extend({
+  siteId: uuid.optional(),
+  status: z.enum(shipmentStatuses).optional(),
+});
 
 export interface ShipmentDeadlineView {
   step: string;

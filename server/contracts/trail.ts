@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { PageQuery } from './paging.js';
+import { sortedPageQuery } from './paging.js';
 
 export const TrailEntryView = z.object({
   id: z.string(),
@@ -14,7 +14,7 @@ export const TrailEntryView = z.object({
 });
 export type TrailEntryView = z.infer<typeof TrailEntryView>;
 
-export const TrailQuery = PageQuery.extend({
+export const TrailQuery = sortedPageQuery(['occurredAt']).extend({
   entity: z.string().max(60).optional(),
   siteId: z.uuid().optional(),
 });

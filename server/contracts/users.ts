@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { sortedPageQuery } from './paging.js';
 import { Role } from './permissions.js';
 import type { Action } from './permissions.js';
 import type { SiteSummary } from './sites.js';
@@ -39,6 +40,8 @@ export const UpdateUserRequest = z
 export type UpdateUserRequest = z.infer<typeof UpdateUserRequest>;
 
 export const userSortKeys = ['email', 'name', 'role', 'lastSignInAt', 'createdAt'] as const;
+export const UserListQuery = sortedPageQuery(userSortKeys);
+export type UserListQuery = z.output<typeof UserListQuery>;
 
 export const UnitSystem = z.enum(['us', 'metric']);
 export type UnitSystem = z.infer<typeof UnitSystem>;

@@ -1,8 +1,17 @@
 import { createDataSource } from './data-source.js';
-import { seedDemo } from './seed/seed-demo.js';
+import { seedDemo, type SeedMode } from './seed/seed-demo.js';
 
-/** Runs pending migrations, then the demo seed. Used by `npm start`, `npm test` and the CLI. */
-export async function prepareDatabase(url: string, options: { seed: boolean; reset?: boolean }): Promise<void> {
+const seedOutcomes = {
+  seeded: 'Added the demo company, its sites, people and records.',
+  'not-empty': 'The database already holds records: the demo seed left it as it is (npm run db:seed adds the demo company beside them).',
+  'already-there': 'The demo company is already there: the demo seed changed nothing.',
+};
+
+/**
+ * Runs pending migrations, then, when asked, the demo seed (see `seedDemo` for when it adds
+ * anything). Used by `npm start`, `npm test` and the CLI.
+ */
+export async function prepareDatabase(url: string, options: { seed: SeedMode | false; reset?: boolean }): Promise<void> {
   const dataSource = createDataSource(url);
   await dataSource.initialize();
   try {
@@ -12,7 +21,7 @@ export async function prepareDatabase(url: string, options: { seed: boolean; res
     }
     const applied = await dataSource.runMigrations({ transaction: 'each' });
     if (applied.length > 0) console.log(`Applied migrations: ${applied.map((m) => m.name).join(', ')}`);
-    if (options.seed) await seedDemo(dataSource);
+    if (options.seed) console.log(seedOutcomes[await seedDemo(dataSource, options.seed)]);
   } finally {
     await dataSource.destroy();
   }

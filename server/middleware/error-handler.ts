@@ -16,6 +16,12 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   } else if (error?.type === 'entity.parse.failed') {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: { _: 'not JSON' } } };
+  } else if (typeof error?.code === 'string' && error.code.startsWith('22')) {
+    // PostgreSQL's data exceptions (a number or date beyond what a column holds) that a contract
+    // did not catch first: the transaction rolled back, so nothing was written.
+    status = 400;
+    body = { error: { code: 'invalid_input', message: 'A value is beyond what can be stored', fields: { _: 'out of range' } } };
+    console.warn(`[${req.method} ${req.originalUrl}] data exception ${error.code}: ${error.message}`);
   } else if (error?.type === 'entity.too.large') {
     status = 413;
     body = { error: { code: 'too_large', message: 'The request body is too large' } };

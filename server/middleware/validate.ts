@@ -21,6 +21,30 @@ export function fieldsOf(error: z.ZodError, prefix?: string): Record<string, str
   return fields;
 }
 
+/**
+ * Characters no record may hold: C0 controls other than tab, line feed and carriage return
+ * (PostgreSQL text cannot store NUL at all), and the bidirectional overrides and isolates that
+ * make text display in another order than it is stored.
+ */
+// eslint-disable-next-line no-control-regex -- finding control characters is the point
+const forbiddenText = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F\u202A-\u202E\u2066-\u2069]/;
+
+/** Field paths of every string in `value` holding a forbidden character. */
+export function unsafeTextFields(value: unknown, path: string[] = []): Record<string, string> {
+  if (typeof value === 'string') {
+    return forbiddenText.test(value) ? { [path.join('.') || '_']: 'Contains a control or direction-override character' } : {};
+  }
+  if (value === null || typeof value !== 'object') return {};
+  return Object.assign(
+    {},
+    ...Object.entries(value).map(([key, inner]) => unsafeTextFields(inner, [...path, key])),
+    // A key may be hostile too.
+    ...Object.keys(value)
+      .filter((key) => forbiddenText.test(key))
+      .map((key) => ({ [[...path, key].join('.')]: 'Contains a control or direction-override character' })),
+  );
+}
+
 /** The schemas a validate() middleware checks, kept on it for the OpenAPI document. */
 export const validatedSchemas = new WeakMap<RequestHandler, Schemas>();
 
@@ -35,6 +59,11 @@ export function validate(schemas: Schemas): RequestHandler {
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part];
       if (!schema) continue;
+      const unsafe = unsafeTextFields(req[part] ?? {}, part === 'body' ? [] : [part]);
+      if (Object.keys(unsafe).length > 0) {
+        Object.assign(fields, unsafe);
+        continue;
+      }
       const result = schema.safeParse(req[part] ?? {});
       if (result.success) parsed[part] = result.data;
       else Object.assign(fields, fieldsOf(result.error, part === 'body' ? undefined : part));

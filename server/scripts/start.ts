@@ -13,9 +13,12 @@ const config = loadConfig();
 const vitePort = Number(process.env.VITE_PORT ?? 4283);
 const appUrl = dev ? `http://127.0.0.1:${vitePort}` : config.appUrl;
 
+// Demo mode (the demo company, its people and the demo sign-in list) is for the project's own
+// cluster; a database named by DATABASE_URL gets it only when DEMO=true asks for it.
+const demo = process.env.DEMO ? process.env.DEMO === 'true' : !process.env.DATABASE_URL;
 const database = await localDatabase(projectDir, 'decant');
 try {
-  await prepareDatabase(database.url, { seed: true });
+  await prepareDatabase(database.url, { seed: demo ? 'when-empty' : false });
   if (!dev) {
     console.log('Building the client…');
     run(resolve(projectDir, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { cwd: projectDir });
@@ -26,7 +29,7 @@ try {
   throw error;
 }
 
-const shared = { DATABASE_URL: database.url, APP_URL: appUrl, NODE_ENV: dev ? 'development' : 'production' };
+const shared = { DATABASE_URL: database.url, APP_URL: appUrl, NODE_ENV: dev ? 'development' : 'production', DEMO: String(demo) };
 if (config.oidc.isLocalFake && !process.env.OIDC_ISSUER) {
   startTypeScript('idp/main.ts', { APP_URLS: appUrl, IDP_PORT: String(new URL(config.oidc.issuer).port) });
 }
@@ -35,16 +38,14 @@ startTypeScript('server/dev/smtp-fake-main.ts', {});
 startTypeScript('server/index.ts', { ...shared, SESSION_SECRET: config.sessionSecret }, dev ? ['--watch'] : []);
 if (dev) startCommand(resolve(projectDir, 'node_modules/.bin/vite'), ['--port', String(vitePort), '--strictPort'], {});
 
-setTimeout(() => {
+function demoAccounts(): string {
+  if (!demo) return '';
   const width = Math.max(...demoPeople.map((person) => person.email.length));
-  console.log(`
-  Decant is running at ${appUrl}
+  const lines = demoPeople.map((p) => `    ${p.email.padEnd(width)}  ${p.role.padEnd(13)}  ${p.duty}`);
+  return `\n  Demo accounts (password: ${demoPassword})\n${lines.join('\n')}\n`;
+}
 
-  Demo accounts (password: ${demoPassword})
-${demoPeople.map((p) => `    ${p.email.padEnd(width)}  ${p.role.padEnd(13)}  ${p.duty}`).join('\n')}
-
-  Press Ctrl-C to stop.`);
-}, 2500);
+setTimeout(() => console.log(`\n  Decant is running at ${appUrl}\n${demoAccounts()}\n  Press Ctrl-C to stop.`), 2500);
 
 let stopping = false;
 async function stop(): Promise<void> {

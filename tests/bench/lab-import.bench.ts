@@ -11,7 +11,7 @@ const ROWS = 10_000;
 const projectDir = resolve(import.meta.dirname, '../..');
 const database = await localDatabase(projectDir, 'decant_bench');
 process.env.DATABASE_URL = database.url;
-await prepareDatabase(database.url, { seed: true, reset: true });
+await prepareDatabase(database.url, { seed: 'when-empty', reset: true });
 // Imported only now: the test helpers read DATABASE_URL when they load.
 const { startTestApp } = await import('../helpers/test-app.js');
 const t = await startTestApp();

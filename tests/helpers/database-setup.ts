@@ -3,5 +3,5 @@ import { testDatabaseUrl } from './test-env.js';
 
 /** Vitest global setup: a clean schema, every migration, and the demo seed, once per run. */
 export default async function setup(): Promise<void> {
-  await prepareDatabase(testDatabaseUrl, { seed: true, reset: true });
+  await prepareDatabase(testDatabaseUrl, { seed: 'when-empty', reset: true });
 }

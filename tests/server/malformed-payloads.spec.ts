@@ -40,6 +40,47 @@ const validLimit = (ids: Ids) => ({
 
 const cases: Case[] = [
   {
+    name: 'site whose name holds a NUL character',
+    method: 'post',
+    path: () => '/api/sites',
+    field: 'name',
+    body: () => ({ name: 'Works\u0000', timeZone: 'America/Chicago', retentionYears: 5, generatorStatus: 'small' }),
+  },
+  {
+    name: 'site whose address hides a right-to-left override',
+    method: 'post',
+    path: () => '/api/sites',
+    field: 'address',
+    body: () => ({
+      name: 'Works',
+      address: '12 Mill \u202Eevird',
+      timeZone: 'America/Chicago',
+      retentionYears: 5,
+      generatorStatus: 'small',
+    }),
+  },
+  {
+    name: 'permit in force from year 0',
+    method: 'post',
+    path: () => '/api/permits',
+    field: 'effectiveFrom',
+    body: (ids) => ({ ...validPermit(ids), effectiveFrom: '0000-01-01' }),
+  },
+  {
+    name: 'limit of 1e308',
+    method: 'post',
+    path: (ids) => `/api/permits/${ids.northPermit}/limits`,
+    field: 'value',
+    body: (ids) => ({ ...validLimit(ids), value: 1e308 }),
+  },
+  {
+    name: 'result with a 30-digit value',
+    method: 'post',
+    path: () => '/api/lab-certificates',
+    field: 'samples.0.results.0.value',
+    body: (ids) => certificateWith(ids, (b) => (b.samples[0]!.results[0]!.value = '123456789012345678901234567890')),
+  },
+  {
     name: 'site with a retention below 3 years',
     method: 'post',
     path: () => '/api/sites',
@@ -249,6 +290,31 @@ describe('malformed payloads are answered 400 naming the field, and write nothin
   afterAll(() => t.close());
 
   it('has at least 20 cases', () => expect(cases.length).toBeGreaterThanOrEqual(20));
+
+  // A sort key is looked up among the list's own keys: `constructor` used to reach Object.prototype.
+  for (const list of [
+    '/api/users',
+    '/api/shipments',
+    '/api/lab-certificates',
+    '/api/lab-certificates/results',
+    '/api/oil-log',
+    '/api/trail',
+  ]) {
+    it(`refuses sortBy=constructor on ${list}`, async () => {
+      const admin = await t.sessionFor('admin@decant.test');
+      const response = await request(t.app)
+        .get(`${list}?sortBy=constructor`)
+        .set('cookie', list === '/api/users' ? admin : coordinator);
+      expect(response.status).toBe(400);
+      expect(response.body.error.fields).toHaveProperty(['query.sortBy']);
+    });
+  }
+
+  it('refuses a NUL character in a query string, naming it', async () => {
+    const response = await request(t.app).get('/api/lab-certificates?search=a%00b').set('cookie', coordinator);
+    expect(response.status).toBe(400);
+    expect(response.body.error.fields).toHaveProperty(['query.search']);
+  });
 
   for (const testCase of cases) {
     it(`refuses a ${testCase.name}`, async () => {

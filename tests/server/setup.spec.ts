@@ -111,7 +111,42 @@ describe('set-up records', () => {
     const flagged = async () =>
       (await t.dataSource.query(`SELECT count(*)::int AS n FROM lab_result WHERE 'over-limit' = ANY(flag_codes)`))[0].n;
     const withStrictLimit = await flagged();
-    await request(t.app).delete(`/api/permits/${permit.body.id}`).set('cookie', coordinator).expect(204);
+    // Entered by mistake: nothing compiled against it yet, so its limit and then the permit may go.
+    await request(t.app).delete(`/api/permits/${permit.body.id}`).set('cookie', coordinator).expect(409);
+    await request(t.app).delete(`/api/permits/${permit.body.id}/limits/${limit.body.id}`).set('cookie', coordinator).expect(204);
     expect(await flagged()).toBeLessThan(withStrictLimit);
+    await request(t.app).delete(`/api/permits/${permit.body.id}`).set('cookie', coordinator).expect(204);
+    expect(await t.dataSource.query('SELECT count(*)::int AS n FROM reporting_period WHERE permit_id = $1', [permit.body.id])).toEqual([
+      { n: 0 },
+    ]);
+  });
+
+  // 40 CFR 403.12(o): records of monitoring and reports are kept at least 3 years.
+  it('refuses to delete a permit whose periods were compiled or sent, and says to end it instead (409, nothing changed)', async () => {
+    const [{ submitted }] = await t.dataSource.query(
+      `SELECT count(*)::int AS submitted FROM reporting_period WHERE permit_id = $1 AND submitted_on IS NOT NULL`,
+      [ids.northPermit],
+    );
+    expect(submitted).toBeGreaterThan(0);
+    const counts = async () =>
+      t.dataSource.query(
+        `SELECT (SELECT count(*)::int FROM permit) AS permits, (SELECT count(*)::int FROM reporting_period) AS periods,
+                (SELECT count(*)::int FROM permit_limit) AS limits, (SELECT count(*)::int FROM trail_entry) AS trail`,
+      );
+    const before = await counts();
+    const response = await request(t.app).delete(`/api/permits/${ids.northPermit}`).set('cookie', coordinator).expect(409);
+    expect(response.body.error.message).toMatch(/effective-to date/);
+    expect(response.body.error.fields).toHaveProperty('effectiveTo');
+    const [limit] = await t.dataSource.query('SELECT id FROM permit_limit WHERE permit_id = $1 LIMIT 1', [ids.northPermit]);
+    const limitResponse = await request(t.app)
+      .delete(`/api/permits/${ids.northPermit}/limits/${limit.id}`)
+      .set('cookie', coordinator)
+      .expect(409);
+    expect(limitResponse.body.error.message).toMatch(/kept/);
+    expect(await counts()).toEqual(before);
+  });
+
+  it("keeps a permit's periods even against a direct delete: the foreign key restricts, it does not cascade", async () => {
+    await expect(t.dataSource.query('DELETE FROM permit WHERE id = $1', [ids.northPermit])).rejects.toThrow(/foreign key/);
   });
 });

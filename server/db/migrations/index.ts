@@ -4,6 +4,7 @@ import { OilAndShipments1796212800000 } from './1796212800000-OilAndShipments.js
 import { Periods1796216400000 } from './1796216400000-Periods.js';
 import { ReportSubmissions1796220000000 } from './1796220000000-ReportSubmissions.js';
 import { MassLimits1796223600000 } from './1796223600000-MassLimits.js';
+import { KeptRecordsRestrict1796227200000 } from './1796227200000-KeptRecordsRestrict.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -13,4 +14,5 @@ export const migrations = [
   Periods1796216400000,
   ReportSubmissions1796220000000,
   MassLimits1796223600000,
+  KeptRecordsRestrict1796227200000,
 ];

@@ -1,4 +1,4 @@
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
 import { Company } from '../../kernel/sites/company.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { UserSite } from '../../kernel/people/user-site.entity.js';
@@ -8,26 +8,38 @@ import { seedLab } from './seed-lab.js';
 import { seedOil } from './seed-oil.js';
 import { seedFlowsAndPeriods } from './seed-periods.js';
 import { seedSetup } from './seed-setup.js';
+import { recordSeedInTrail } from './seed-trail.js';
 
 /**
- * Loads the demo scenario. Idempotent: every record is found by its natural key first, so a
- * second run adds nothing. It never overwrites what a user changed through the app.
+ * When the demo may be added: `when-empty` (npm start in demo mode, npm test) only to a database
+ * that holds no company and no person yet; `explicit` (npm run db:seed) beside other data too.
  */
-export async function seedDemo(dataSource: DataSource): Promise<void> {
-  await dataSource.transaction(async (manager) => {
-    let company = await manager.findOneBy(Company, { name: demoCompany.name });
-    company ??= await manager.save(Company, manager.create(Company, demoCompany));
+export type SeedMode = 'when-empty' | 'explicit';
+
+export type SeedOutcome = 'seeded' | 'not-empty' | 'already-there';
+
+/**
+ * Adds the demo company, its two sites, people and 18 months of records, all in one
+ * transaction, and writes each record it made to the trail as the seed. It only ever creates:
+ * it runs when the demo company is absent, touches no row outside the demo sites and never
+ * updates a record that existed before it started.
+ */
+export async function seedDemo(dataSource: DataSource, mode: SeedMode): Promise<SeedOutcome> {
+  return dataSource.transaction(async (manager) => {
+    if (await manager.existsBy(Company, { name: demoCompany.name })) return 'already-there';
+    if (mode === 'when-empty' && ((await manager.count(Company)) > 0 || (await manager.count(User)) > 0)) return 'not-empty';
+    const taken = await manager.findBy(User, { email: In(demoPeople.map((person) => person.email)) });
+    if (taken.length > 0) {
+      throw new Error(`The demo seed adds nothing: ${taken.map((user) => user.email).join(', ')} already belong to people here`);
+    }
+    const company = await manager.save(Company, manager.create(Company, demoCompany));
 
     const sitesByKey = new Map<string, Site>();
     for (const { key, ...fields } of demoSites) {
-      let site = await manager.findOneBy(Site, { companyId: company.id, name: fields.name });
-      site ??= await manager.save(Site, manager.create(Site, { ...fields, companyId: company.id }));
-      sitesByKey.set(key, site);
+      sitesByKey.set(key, await manager.save(Site, manager.create(Site, { ...fields, companyId: company.id })));
     }
 
     for (const person of demoPeople) {
-      const existing = await manager.findOneBy(User, { email: person.email });
-      if (existing) continue;
       const user = await manager.save(User, manager.create(User, { email: person.email, name: person.name, role: person.role }));
       await manager.insert(
         UserSite,
@@ -65,5 +77,7 @@ export async function seedDemo(dataSource: DataSource): Promise<void> {
       ],
       coordinator,
     );
+    await recordSeedInTrail(manager, [north.id, east.id]);
+    return 'seeded';
   });
 }

@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import type { EntityManager } from 'typeorm';
 import { compileWithin, ensurePeriods } from '../../features/periods/periods.service.js';
+import { seedActor } from './seed-trail.js';
 
 /** Daily flows at each outfall, then every period compiled once, so the demo's follow-ups exist on first start. */
 export async function seedFlowsAndPeriods(
@@ -34,15 +35,18 @@ export async function seedFlowsAndPeriods(
       const periods = await manager.query(`SELECT id FROM reporting_period WHERE permit_id = $1 AND status = 'open' ORDER BY starts_on`, [
         permit.id,
       ]);
-      for (const period of periods) await compileWithin(manager, coordinator, period.id);
+      // Compiled by the seed, not credited to a person.
+      for (const period of periods) await compileWithin(manager, { id: null, email: seedActor }, period.id);
     }
   }
   // Older obligations were met at the time; the recent ones are still open, as on a real site.
+  // Only the follow-ups the seed's own compiles just opened at the demo sites.
   await manager.query(
     `UPDATE follow_up SET status = 'done', closed_at = due_at - interval '3 hours', owner_id = $1,
        closing_note = CASE kind WHEN 'repeat-sampling' THEN 'Resampled; result sent to the control authority'
                                ELSE 'Called and e-mailed the pretreatment office' END
-      WHERE status = 'open' AND kind IN ('notify-control-authority', 'repeat-sampling') AND due_at < now() - interval '60 days'`,
-    [coordinator.id],
+      WHERE site_id = ANY($2) AND status = 'open' AND kind IN ('notify-control-authority', 'repeat-sampling')
+        AND due_at < now() - interval '60 days'`,
+    [coordinator.id, sites.map((site) => site.id)],
   );
 }

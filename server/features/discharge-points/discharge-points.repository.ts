@@ -16,6 +16,7 @@ export const dischargePointTarget = {
     active: row.active,
   }),
   siteIdOf: (row: DischargePoint) => row.siteId,
+  insteadOfDelete: 'Mark it inactive instead: its samples and limits stay.',
 } satisfies Target<DischargePoint, DischargePointView>;
 
 export async function findDischargePoints(dataSource: DataSource, siteId: string): Promise<DischargePointView[]> {

@@ -74,6 +74,7 @@ export const equipmentTarget = {
   entity: 'equipment',
   view: ({ site: _site, ...row }: Equipment) => row,
   siteIdOf: (row: Equipment) => row.siteId,
+  insteadOfDelete: 'Mark it inactive instead: its log entries and checks stay.',
 } satisfies Target<Equipment, unknown>;
 
 export async function findEquipmentSiteId(db: Db, id: string): Promise<string | undefined> {

@@ -6,7 +6,15 @@ import { LabCertificate } from './lab-certificate.entity.js';
 import { LabResult } from './lab-result.entity.js';
 import { LabSample } from './lab-sample.entity.js';
 import { QcBatch } from './qc-batch.entity.js';
-import type { CertificateDetail, CertificateSummary, ResultRow, ResultView, StoredFileView } from '../../contracts/lab.js';
+import type {
+  CertificateDetail,
+  CertificateSummary,
+  certificateSortKeys,
+  ResultRow,
+  resultSortKeys,
+  ResultView,
+  StoredFileView,
+} from '../../contracts/lab.js';
 import type { Page } from '../../contracts/paging.js';
 import { toMethodPrecision } from '../../domain/method-1664.js';
 import { queryPage } from '../../db/page.js';
@@ -162,12 +170,23 @@ export async function loadCertificate(db: Db, id: string): Promise<CertificateDe
   };
 }
 
-const certificateSorts: Record<string, string> = { receivedOn: 'c.received_on', reportNumber: 'c.report_number', labName: 'c.lab_name' };
+const certificateSorts: Record<(typeof certificateSortKeys)[number], string> = {
+  receivedOn: 'c.received_on',
+  reportNumber: 'c.report_number',
+  labName: 'c.lab_name',
+};
 
 export async function pageCertificates(
   db: Db,
   siteIds: string[],
-  query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; search?: string; flagged?: 'true' | 'false' },
+  query: {
+    page: number;
+    pageSize: number;
+    sortBy?: (typeof certificateSortKeys)[number];
+    sortDesc?: boolean;
+    search?: string;
+    flagged?: 'true' | 'false';
+  },
 ): Promise<Page<CertificateSummary>> {
   const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
   const flagged = query.flagged === undefined ? null : query.flagged === 'true';
@@ -179,7 +198,7 @@ export async function pageCertificates(
       where: `c.site_id = ANY($1::uuid[])
       AND ($2::text IS NULL OR c.report_number ILIKE $2 OR c.lab_name ILIKE $2)
       AND ($3::boolean IS NULL OR (jsonb_array_length(c.flags) > 0) = $3)`,
-      order: `${certificateSorts[query.sortBy ?? ''] ?? 'c.received_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, c.id`,
+      order: `${query.sortBy ? certificateSorts[query.sortBy] : 'c.received_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, c.id`,
       params: [siteIds, search, flagged],
     },
     query,
@@ -187,7 +206,7 @@ export async function pageCertificates(
   );
 }
 
-const resultSorts: Record<string, string> = {
+const resultSorts: Record<(typeof resultSortKeys)[number], string> = {
   collectedLocal: 'ls.collected_at',
   parameterName: 'p.name',
   valueShown: 'lr.value',
@@ -224,7 +243,7 @@ export async function pageResults(
   query: {
     page: number;
     pageSize: number;
-    sortBy?: string;
+    sortBy?: (typeof resultSortKeys)[number];
     sortDesc?: boolean;
     dischargePointId?: string;
     parameterId?: string;
@@ -245,7 +264,7 @@ export async function pageResults(
       where: `c.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR ls.discharge_point_id = $2) AND ($3::uuid IS NULL OR lr.parameter_id = $3)
       AND ($4::date IS NULL OR ls.collected_on >= $4) AND ($5::date IS NULL OR ls.collected_on <= $5)
       AND ($6::text IS NULL OR lr.flag_codes @> ARRAY[$6]::text[])`,
-      order: `${resultSorts[query.sortBy ?? ''] ?? 'ls.collected_at'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, lr.id`,
+      order: `${query.sortBy ? resultSorts[query.sortBy] : 'ls.collected_at'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, lr.id`,
       params: [
         siteIds,
         query.dischargePointId ?? null,

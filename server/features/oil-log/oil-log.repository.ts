@@ -1,7 +1,7 @@
 import type { DataSource, DeepPartial, EntityManager, QueryDeepPartialEntity } from 'typeorm';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { OilLogEntry } from './oil-log-entry.entity.js';
-import type { OilLogEntryView } from '../../contracts/oil.js';
+import type { OilLogEntryView, oilLogSortKeys } from '../../contracts/oil.js';
 import type { Page } from '../../contracts/paging.js';
 import { queryPage } from '../../db/page.js';
 
@@ -57,12 +57,24 @@ export async function findOilLogEntry(db: Db, id: string): Promise<OilLogEntryVi
   return row ? view(row) : null;
 }
 
-const sorts: Record<string, string> = { collectedOn: 'o.collected_on', volumeLitres: 'o.volume_litres', equipmentName: 'e.name' };
+const sorts: Record<(typeof oilLogSortKeys)[number], string> = {
+  collectedOn: 'o.collected_on',
+  volumeLitres: 'o.volume_litres',
+  equipmentName: 'e.name',
+};
 
 export async function pageOilLog(
   db: Db,
   siteIds: string[],
-  query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; equipmentId?: string; from?: string; to?: string },
+  query: {
+    page: number;
+    pageSize: number;
+    sortBy?: (typeof oilLogSortKeys)[number];
+    sortDesc?: boolean;
+    equipmentId?: string;
+    from?: string;
+    to?: string;
+  },
 ): Promise<Page<OilLogEntryView>> {
   return queryPage(
     db,
@@ -71,7 +83,7 @@ export async function pageOilLog(
       countFrom: 'FROM oil_log_entry o',
       where: `o.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR o.equipment_id = $2)
       AND ($3::date IS NULL OR o.collected_on >= $3) AND ($4::date IS NULL OR o.collected_on <= $4)`,
-      order: `${sorts[query.sortBy ?? ''] ?? 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`,
+      order: `${query.sortBy ? sorts[query.sortBy] : 'o.collected_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, o.created_at DESC`,
       params: [siteIds, query.equipmentId ?? null, query.from ?? null, query.to ?? null],
     },
     query,

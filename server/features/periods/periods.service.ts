@@ -16,7 +16,7 @@ import { inParallel } from '../../db/in-parallel.js';
 import { invalid, notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { siteToday } from '../../kernel/site-today.js';
-import { recordTrail } from '../../kernel/trail/trail.js';
+import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
 import { loadPeriodInput, type PeriodRecord } from './period-input.repository.js';
 import {
   allPermitIds,
@@ -107,11 +107,7 @@ export async function compileAndSave(dataSource: DataSource, user: CurrentUser, 
 }
 
 /** The compile itself, inside the caller's transaction (the seed compiles the demo's periods). */
-export async function compileWithin(
-  manager: EntityManager,
-  user: Pick<CurrentUser, 'id' | 'email'>,
-  periodId: string,
-): Promise<PeriodSummary> {
+export async function compileWithin(manager: EntityManager, user: Actor, periodId: string): Promise<PeriodSummary> {
   const period = await findPeriod(manager, periodId);
   if (!period) throw notFound('Period');
   const summary = await summarise(manager, period);

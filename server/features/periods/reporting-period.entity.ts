@@ -16,7 +16,7 @@ export class ReportingPeriod {
   @Column({ type: 'uuid', name: 'permit_id' })
   permitId: string;
 
-  @ManyToOne(() => Permit, { onDelete: 'CASCADE' })
+  @ManyToOne(() => Permit, { onDelete: 'RESTRICT' })
   @JoinColumn({ name: 'permit_id', foreignKeyConstraintName: 'reporting_period_permit_id_fkey' })
   permit?: Permit;
 

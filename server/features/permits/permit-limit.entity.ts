@@ -30,7 +30,7 @@ export class PermitLimit {
   @Column({ type: 'uuid', name: 'permit_id' })
   permitId: string;
 
-  @ManyToOne(() => Permit, { onDelete: 'CASCADE' })
+  @ManyToOne(() => Permit, { onDelete: 'RESTRICT' })
   @JoinColumn({ name: 'permit_id', foreignKeyConstraintName: 'permit_limit_permit_id_fkey' })
   permit?: Permit;
 

@@ -1,8 +1,9 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import { IsNull, type DataSource, type EntityManager } from 'typeorm';
 import type { Limit, Permit as PermitView } from '../../contracts/setup.js';
 import type { Target } from '../../kernel/trail/traced-writes.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { Parameter } from '../parameters/parameter.entity.js';
+import { ReportingPeriod } from '../periods/reporting-period.entity.js';
 import { PermitLimit } from './permit-limit.entity.js';
 import { Permit } from './permit.entity.js';
 
@@ -78,16 +79,25 @@ export async function findLimits(db: Db, permitId: string, siteId: string): Prom
   return rows.map(limitTarget(siteId).view);
 }
 
-/** The discharge points a permit's limits apply to (their lab flags follow the limits). */
-export async function limitedPointIds(db: Db, permitId: string): Promise<string[]> {
-  const rows = await db
-    .getRepository(PermitLimit)
-    .createQueryBuilder('limit')
-    .select('DISTINCT limit.dischargePointId', 'pointId')
-    .where('limit.permitId = :permitId', { permitId })
-    .getRawMany<{ pointId: string }>();
-  return rows.map((row) => row.pointId);
+/**
+ * How many of a permit's periods are kept records: compiled, signed, amended or sent. Only a
+ * permit without any (entered by mistake) may be deleted.
+ */
+export async function countKeptPeriods(manager: EntityManager, permitId: string): Promise<number> {
+  return manager
+    .getRepository(ReportingPeriod)
+    .createQueryBuilder('period')
+    .where('period.permitId = :permitId', { permitId })
+    .andWhere("(period.status <> 'open' OR period.compiledAt IS NOT NULL OR period.submittedOn IS NOT NULL)")
+    .getCount();
 }
+
+/** The calendar's never-compiled periods of a permit entered by mistake: they hold nothing of their own. */
+export async function deleteUncompiledPeriods(manager: EntityManager, permitId: string): Promise<void> {
+  await manager.delete(ReportingPeriod, { permitId, status: 'open', compiledAt: IsNull(), submittedOn: IsNull() });
+}
+
+export const countLimits = (manager: EntityManager, permitId: string) => manager.countBy(PermitLimit, { permitId });
 
 export const findPoint = (manager: EntityManager, id: string) => manager.findOneBy(DischargePoint, { id });
 export const findParameter = (manager: EntityManager, id: string) => manager.findOneBy(Parameter, { id });

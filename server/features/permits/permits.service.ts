@@ -5,17 +5,19 @@ import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js'
 import { uniquely } from '../../db/uniquely.js';
 import type { Permit } from './permit.entity.js';
 import { convert, isMassRate, units } from '../../domain/units.js';
-import { invalid, notFound } from '../../errors/app-error.js';
+import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
 import { recheckResultsAtPoint } from '../lab/lab-flags.service.js';
 import { ensurePeriods } from '../periods/periods.service.js';
 import {
+  countKeptPeriods,
+  countLimits,
+  deleteUncompiledPeriods,
   findLimits,
   findParameter,
   findPermit,
   findPermits,
   findPoint,
-  limitedPointIds,
   limitTarget,
   permitTarget,
 } from './permits.repository.js';
@@ -59,13 +61,25 @@ export class PermitsService {
     return updated;
   }
 
+  /**
+   * Only a permit entered by mistake goes: no limits, no period compiled or sent. A permit that
+   * judged anything is a kept record (40 CFR 403.12(o): at least 3 years) and ends instead.
+   */
   async remove(user: CurrentUser, id: string): Promise<void> {
     await this.visiblePermit(user, id);
-    const points = await limitedPointIds(this.dataSource, id);
-    await deleteTraced(this.dataSource, user, permitTarget, id);
-    // Its limits went with it: the flags they raised must go too.
-    await this.dataSource.transaction(async (manager) => {
-      for (const pointId of points) await recheckResultsAtPoint(manager, pointId);
+    await deleteTraced(this.dataSource, user, permitTarget, id, async (manager, before) => {
+      const kept = await countKeptPeriods(manager, id);
+      if (kept > 0) {
+        throw conflict(
+          `Permit ${before.number} has ${kept} compiled or sent reporting period(s), which are kept records, so it cannot be deleted. ` +
+            'End it instead: set its effective-to date to the last day it applied.',
+          { effectiveTo: 'Set the last day this permit applied' },
+        );
+      }
+      if ((await countLimits(manager, id)) > 0) {
+        throw conflict(`Permit ${before.number} still has limits. End the permit with its effective-to date, or remove its limits first.`);
+      }
+      await deleteUncompiledPeriods(manager, id);
     });
   }
 
@@ -109,11 +123,17 @@ export class PermitsService {
     return updated;
   }
 
+  /** A limit that judged a compiled or sent period is kept: it may be changed (in the trail), not removed. */
   async removeLimit(user: CurrentUser, id: string, limitId: string): Promise<void> {
     const permit = await this.visiblePermit(user, id);
     let pointId = '';
-    await deleteTraced(this.dataSource, user, limitTarget(permit.siteId), limitId, async (_m, before) => {
+    await deleteTraced(this.dataSource, user, limitTarget(permit.siteId), limitId, async (manager, before) => {
       if (before.permitId !== permit.id) throw notFound('Limit');
+      if ((await countKeptPeriods(manager, permit.id)) > 0) {
+        throw conflict(
+          'This limit judged periods already compiled or sent, so it is kept and cannot be removed. Change its value instead; the trail keeps what it was.',
+        );
+      }
       pointId = before.dischargePointId;
     });
     await this.dataSource.transaction((manager) => recheckResultsAtPoint(manager, pointId));

@@ -7,7 +7,7 @@ export class ShipmentFile {
   @PrimaryColumn({ type: 'uuid', name: 'shipment_id' })
   shipmentId: string;
 
-  @ManyToOne(() => Shipment, { onDelete: 'CASCADE' })
+  @ManyToOne(() => Shipment, { onDelete: 'RESTRICT' })
   @JoinColumn({ name: 'shipment_id', foreignKeyConstraintName: 'shipment_file_shipment_id_fkey' })
   shipment?: Shipment;
 

@@ -1,6 +1,6 @@
 import type { DataSource, DeepPartial, EntityManager, QueryDeepPartialEntity } from 'typeorm';
 import type { Page } from '../../contracts/paging.js';
-import type { ShipmentView } from '../../contracts/shipments.js';
+import type { shipmentSortKeys, ShipmentView } from '../../contracts/shipments.js';
 import { daysLeft, manifestDeadlines, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
 import { queryPage } from '../../db/page.js';
 import { ShipmentFile } from './shipment-file.entity.js';
@@ -103,7 +103,7 @@ export async function findShipment(db: Db, id: string): Promise<ShipmentView | n
   return row ? view(row) : null;
 }
 
-const sorts: Record<string, string> = {
+const sorts: Record<(typeof shipmentSortKeys)[number], string> = {
   shippedOn: 's.shipped_on',
   documentNumber: 's.document_number',
   quantityLitres: 's.quantity_litres',
@@ -112,7 +112,14 @@ const sorts: Record<string, string> = {
 export async function pageShipments(
   db: Db,
   siteIds: string[],
-  query: { page: number; pageSize: number; sortBy?: string; sortDesc?: boolean; status?: string; search?: string },
+  query: {
+    page: number;
+    pageSize: number;
+    sortBy?: (typeof shipmentSortKeys)[number];
+    sortDesc?: boolean;
+    status?: string;
+    search?: string;
+  },
 ): Promise<Page<ShipmentView>> {
   const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
   return queryPage(
@@ -122,7 +129,7 @@ export async function pageShipments(
       countFrom: 'FROM shipment s JOIN site st ON st.id = s.site_id',
       where: `s.site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR ${statusSql(4)} = $2)
       AND ($3::text IS NULL OR s.document_number ILIKE $3 OR s.transporter_name ILIKE $3 OR s.receiver_name ILIKE $3)`,
-      order: `${sorts[query.sortBy ?? ''] ?? 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`,
+      order: `${query.sortBy ? sorts[query.sortBy] : 's.shipped_on'} ${query.sortBy && !query.sortDesc ? 'ASC' : 'DESC'}, s.id`,
       params: [siteIds, query.status ?? null, search, ...firstStepParams()],
     },
     query,

@@ -1,10 +1,10 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
 import { UserSite } from '../../kernel/people/user-site.entity.js';
 import { Site } from '../../kernel/sites/site.entity.js';
-import type { Page, PageQuery } from '../../contracts/paging.js';
-import type { UserView } from '../../contracts/users.js';
+import type { Page } from '../../contracts/paging.js';
+import type { UserListQuery, UserView } from '../../contracts/users.js';
 
-const sortColumns: Record<string, string> = {
+const sortColumns: Record<UserListQuery['sortBy'] & string, string> = {
   email: 'u.email',
   name: 'u.name',
   role: 'u.role',
@@ -41,8 +41,8 @@ const selectUsers = `
          coalesce(array_agg(us.site_id ORDER BY us.site_id) FILTER (WHERE us.site_id IS NOT NULL), '{}') AS site_ids
     FROM app_user u LEFT JOIN user_site us ON us.user_id = u.id`;
 
-export async function pageUsers(dataSource: DataSource, query: PageQuery): Promise<Page<UserView>> {
-  const sort = sortColumns[query.sortBy ?? ''] ?? 'u.email';
+export async function pageUsers(dataSource: DataSource, query: UserListQuery): Promise<Page<UserView>> {
+  const sort = query.sortBy ? sortColumns[query.sortBy] : 'u.email';
   const direction = query.sortDesc ? 'DESC NULLS LAST' : 'ASC NULLS FIRST';
   const search = query.search ? `%${query.search.replace(/[\\%_]/g, '\\$&')}%` : null;
   const rows: UserRow[] = await dataSource.query(

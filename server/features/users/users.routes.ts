@@ -1,8 +1,7 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { PageQuery } from '../../contracts/paging.js';
 import { IdParams } from '../../contracts/params.js';
-import { CreateUserRequest, UpdateUserRequest } from '../../contracts/users.js';
+import { CreateUserRequest, UpdateUserRequest, UserListQuery } from '../../contracts/users.js';
 import { endpoint } from '../../http/endpoint.js';
 import { UsersService } from './users.service.js';
 
@@ -10,7 +9,7 @@ export function usersRoutes(dataSource: DataSource): Router {
   const router = Router();
   const users = new UsersService(dataSource);
 
-  router.get('/', ...endpoint({ action: 'users.read', query: PageQuery }, ({ query }) => users.list(query)));
+  router.get('/', ...endpoint({ action: 'users.read', query: UserListQuery }, ({ query }) => users.list(query)));
   router.get('/site-options', ...endpoint({ action: 'users.manage' }, () => users.siteOptions()));
   router.get('/:id', ...endpoint({ action: 'users.read', params: IdParams }, ({ params }) => users.get(params.id)));
   router.post(

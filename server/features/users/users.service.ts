@@ -1,6 +1,6 @@
 import { can } from '../../contracts/permissions.js';
 import type { DataSource, EntityManager } from 'typeorm';
-import type { PageQuery } from '../../contracts/paging.js';
+import type { UserListQuery } from '../../contracts/users.js';
 import type { CreateUserRequest, UpdateUserRequest, UserView } from '../../contracts/users.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
@@ -13,7 +13,7 @@ import { countExistingSites, findUserView, pageUsers, replaceUserSites } from '.
 export class UsersService {
   constructor(private readonly dataSource: DataSource) {}
 
-  list(query: PageQuery) {
+  list(query: UserListQuery) {
     return pageUsers(this.dataSource, query);
   }
 

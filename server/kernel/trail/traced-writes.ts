@@ -11,6 +11,8 @@ export interface Target<E extends ObjectLiteral & { id: string }, V> {
   entity: string;
   view: (row: E) => V;
   siteIdOf: (row: E) => string | null;
+  /** What to do instead when kept records still refer to it (a 409 says it), e.g. mark it inactive. */
+  insteadOfDelete?: string;
 }
 
 type Check<E> = (manager: EntityManager, before: E) => Promise<void>;
@@ -83,7 +85,10 @@ export async function deleteTraced<E extends ObjectLiteral & { id: string }, V>(
     try {
       await manager.delete(target.entityClass, { id } as FindOptionsWhere<E>);
     } catch (error) {
-      if ((error as { code?: string }).code === '23503') throw conflict(`${target.entity} is used by other records and cannot be deleted`);
+      if ((error as { code?: string }).code === '23503') {
+        const instead = target.insteadOfDelete ? ` ${target.insteadOfDelete}` : '';
+        throw conflict(`This ${target.entity} is referred to by kept records, so it cannot be deleted.${instead}`);
+      }
       throw error;
     }
     await recordTrail(manager, actor, {
