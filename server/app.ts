@@ -27,6 +27,7 @@ import { trailRoutes } from './features/trail/trail.routes.js';
 import { meRoutes } from './features/users/me.routes.js';
 import { usersRoutes } from './features/users/users.routes.js';
 import { apiNotFound, errorHandler } from './middleware/error-handler.js';
+import { signInRateLimit, writeRateLimit } from './middleware/rate-limits.js';
 import { sameOrigin } from './middleware/same-origin.js';
 import { mountRouter } from './openapi/mounts.js';
 import { openApiRoutes } from './openapi/openapi.routes.js';
@@ -43,7 +44,7 @@ export interface AppDependencies {
 export function createApp({ config, dataSource, sessionPool, clientDir }: AppDependencies): express.Express {
   const app = express();
   app.disable('x-powered-by');
-  if (config.trustProxy) app.set('trust proxy', config.trustProxy);
+  if (config.trustProxy !== undefined) app.set('trust proxy', config.trustProxy);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -63,6 +64,8 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   mountRouter(api, '/health', healthRoutes(dataSource));
   api.use(sessionMiddleware(config, sessionPool));
   api.use(sameOrigin(config.appUrl));
+  api.use(writeRateLimit);
+  api.use(['/auth/sign-in', '/auth/callback'], signInRateLimit);
   api.use(loadCurrentUser(dataSource));
   mountRouter(api, '/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
   mountRouter(api, '/me', meRoutes(dataSource));

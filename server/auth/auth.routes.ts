@@ -5,8 +5,8 @@ import type { Config } from '../config/env.js';
 import { demoPassword, demoPeople } from '../db/seed/demo-scenario.js';
 import { validate } from '../middleware/validate.js';
 import type { OidcRelyingParty } from './oidc.js';
-import { InactiveUserError, provisionUser } from './provision-user.js';
-import { sessionCookieName } from './session.js';
+import { provisionUser, SignInRefused } from './provision-user.js';
+import { PENDING_SIGN_IN_MS, sessionCookieName } from './session.js';
 
 /** Only same-app paths: never an absolute or protocol-relative URL (open redirect). */
 function safeReturnPath(value: string | undefined): string {
@@ -29,6 +29,8 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
     const query = SignInQuery.parse(req.query);
     const { url, state, nonce, codeVerifier } = await oidc.authorizationUrl(query.loginHint);
     req.session.pendingSignIn = { state, nonce, codeVerifier, returnTo: safeReturnPath(query.returnTo) };
+    // An anonymous visitor's session row lives only as long as a sign-in may take.
+    if (!req.session.userId) req.session.cookie.maxAge = PENDING_SIGN_IN_MS;
     req.session.save((error) => (error ? res.status(500).end() : res.redirect(url.toString())));
   });
 
@@ -50,10 +52,11 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
         issuer: String(identity.claims.iss),
         sub: String(identity.claims.sub),
         email: typeof identity.claims.email === 'string' ? identity.claims.email : undefined,
+        emailVerified: identity.claims.email_verified === true,
         name: typeof identity.claims.name === 'string' ? identity.claims.name : undefined,
       });
     } catch (error) {
-      if (error instanceof InactiveUserError) return fail('account-inactive');
+      if (error instanceof SignInRefused) return fail(error.reason);
       throw error;
     }
     // A new session id at sign-in, so a session fixed before it is worth nothing after.
@@ -61,6 +64,7 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
       if (error) return fail('session-error');
       req.session.userId = user.id;
       req.session.idToken = identity.idToken;
+      req.session.signedInAt = Date.now();
       req.session.save(() => res.redirect(pending.returnTo));
     });
   });

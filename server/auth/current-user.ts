@@ -2,6 +2,7 @@ import type { RequestHandler, Response } from 'express';
 import type { DataSource } from 'typeorm';
 import type { Role } from '../contracts/permissions.js';
 import { unauthenticated } from '../errors/app-error.js';
+import { SESSION_ABSOLUTE_MS } from './session.js';
 
 export interface CurrentUser {
   id: string;
@@ -16,6 +17,12 @@ export function loadCurrentUser(dataSource: DataSource): RequestHandler {
   return async (req, res, next) => {
     const userId = req.session?.userId;
     if (!userId) return next();
+    // Past its absolute lifetime (or from before it was recorded) a session ends, however active.
+    const signedInAt = req.session.signedInAt ?? 0;
+    if (Date.now() - signedInAt > SESSION_ABSOLUTE_MS) {
+      await new Promise<void>((resolve) => req.session.destroy(() => resolve()));
+      return next();
+    }
     const rows: Array<{ id: string; email: string; name: string; role: Role | null; active: boolean; site_ids: string[] }> =
       await dataSource.query(
         `SELECT u.id, u.email, u.name, u.role, u.active,

@@ -7,12 +7,21 @@ declare module 'express-session' {
   interface SessionData {
     userId?: string;
     idToken?: string;
+    /** When the person signed in (ms since the epoch): the session ends SESSION_ABSOLUTE_MS after, however active. */
+    signedInAt?: number;
     /** What the sign-in redirect must find again at the callback. */
     pendingSignIn?: { state: string; nonce: string; codeVerifier: string; returnTo: string };
   }
 }
 
 export const sessionCookieName = 'decant.sid';
+
+/** A session ends after 12 idle hours (the cookie rolls with each request)… */
+export const SESSION_IDLE_MS = 12 * 60 * 60 * 1000;
+/** …and, however busy, 24 hours after sign-in: a stolen cookie is not good forever. */
+export const SESSION_ABSOLUTE_MS = 24 * 60 * 60 * 1000;
+/** A sign-in started but not finished is kept 10 minutes, not a whole session's life. */
+export const PENDING_SIGN_IN_MS = 10 * 60 * 1000;
 
 /**
  * Sessions live in PostgreSQL (table `session`, created by a migration), so they survive a
@@ -30,9 +39,10 @@ export function sessionMiddleware(config: Config, pool: pg.Pool) {
     cookie: {
       httpOnly: true,
       sameSite: 'lax',
-      // Secure whenever the request reached us over HTTPS (directly, or via a trusted proxy).
-      secure: 'auto',
-      maxAge: 12 * 60 * 60 * 1000,
+      // Secure whenever the app's public address is https: then the cookie never travels in clear
+      // (behind a TLS-terminating proxy, TRUST_PROXY lets Express see the request as https).
+      secure: config.appUrl.startsWith('https:'),
+      maxAge: SESSION_IDLE_MS,
     },
   });
 }

@@ -41,9 +41,24 @@ export interface Config {
   sessionSecret: string;
   smtpUrl: string;
   mailFrom: string;
-  trustProxy: string | undefined;
+  /** Express `trust proxy`: a hop count, true/false, or addresses and subnets. */
+  trustProxy: number | boolean | string | undefined;
   /** Show the demo accounts on the sign-in page: only when the local fake provider is in use. */
   demo: boolean;
+}
+
+/**
+ * `TRUST_PROXY=1` means one proxy hop, as Express reads the number 1; passed on as the string
+ * "1" Express would take it for an address and trust nothing, so cookies behind TLS were never
+ * Secure. Numbers and booleans are turned into what they say; anything else is a list of
+ * addresses or subnets.
+ */
+export function parseTrustProxy(value: string | undefined): number | boolean | string | undefined {
+  if (value === undefined || value.trim() === '') return undefined;
+  const text = value.trim();
+  if (/^\d+$/.test(text)) return Number(text);
+  if (text === 'true' || text === 'false') return text === 'true';
+  return text;
 }
 
 export function localDatabaseUrl(pgPort: number, database: string): string {
@@ -69,7 +84,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     sessionSecret: env.SESSION_SECRET ?? 'decant-local-development-session-secret',
     smtpUrl: env.SMTP_URL ?? `smtp://127.0.0.1:${env.SMTP_PORT}`,
     mailFrom: env.MAIL_FROM,
-    trustProxy: env.TRUST_PROXY,
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
     demo: env.DEMO ? env.DEMO === 'true' : isLocalFake,
   };
 }

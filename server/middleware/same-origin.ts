@@ -15,8 +15,8 @@ export function sameOrigin(appUrl: string): RequestHandler {
     if (safeMethods.has(req.method)) return next();
     const origin = req.get('origin');
     const fetchSite = req.get('sec-fetch-site');
-    const selfOrigin = `${req.protocol}://${req.get('host')}`;
-    const originOk = !origin || origin === allowed || origin === selfOrigin;
+    // Compared with APP_URL only: the Host header is the client's to choose.
+    const originOk = !origin || origin === allowed;
     const siteOk = !fetchSite || fetchSite === 'same-origin' || fetchSite === 'none';
     if (originOk && siteOk) return next();
     next(new AppError(403, 'cross_site', 'Cross-site requests are refused'));

@@ -2,6 +2,7 @@ import { resolve } from 'node:path';
 import { loadConfig } from '../config/env.js';
 import { demoPassword, demoPeople } from '../db/seed/demo-scenario.js';
 import { prepareDatabase } from '../db/prepare.js';
+import { waitForFreePorts } from './free-ports.js';
 import { localDatabase } from './local-database.js';
 import { run, startCommand, startTypeScript, stopChildren } from './processes.js';
 
@@ -12,6 +13,14 @@ const dev = process.argv.includes('--dev');
 const config = loadConfig();
 const vitePort = Number(process.env.VITE_PORT ?? 4283);
 const appUrl = dev ? `http://127.0.0.1:${vitePort}` : config.appUrl;
+
+// A previous run that crashed may still hold its ports for a moment.
+const ports = [{ port: config.port, name: 'the app' }];
+if (config.oidc.isLocalFake && !process.env.OIDC_ISSUER)
+  ports.push({ port: Number(new URL(config.oidc.issuer).port), name: 'the test identity provider' });
+if (!process.env.SMTP_URL) ports.push({ port: Number(new URL(config.smtpUrl).port), name: 'the SMTP fake' });
+if (dev) ports.push({ port: vitePort, name: 'Vite' });
+await waitForFreePorts(ports, config.host);
 
 // Demo mode (the demo company, its people and the demo sign-in list) is for the project's own
 // cluster; a database named by DATABASE_URL gets it only when DEMO=true asks for it.

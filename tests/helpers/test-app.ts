@@ -12,7 +12,7 @@ export interface TestApp {
   dataSource: DataSource;
   config: Config;
   /** A session cookie for a seeded user, stored in the real session table. */
-  sessionFor(email: string): Promise<string>;
+  sessionFor(email: string, signedInAt?: number): Promise<string>;
   count(table: string): Promise<number>;
   close(): Promise<void>;
 }
@@ -23,12 +23,17 @@ export async function startTestApp(overrides: Partial<Config> = {}): Promise<Tes
   const sessionPool = new pg.Pool({ connectionString: testDatabaseUrl, max: 2 });
   const app = createApp({ config, dataSource, sessionPool });
 
-  async function sessionFor(email: string): Promise<string> {
+  /** A signed-in session cookie for a demo person; `signedInAt` backdates the sign-in. */
+  async function sessionFor(email: string, signedInAt = Date.now()): Promise<string> {
     const [user] = await dataSource.query('SELECT id FROM app_user WHERE email = $1', [email]);
     if (!user) throw new Error(`No user ${email}`);
     const sid = randomBytes(18).toString('base64url');
     const expires = new Date(Date.now() + 3600_000);
-    const sess = { cookie: { originalMaxAge: 3600_000, expires, httpOnly: true, path: '/', sameSite: 'lax' }, userId: user.id };
+    const sess = {
+      cookie: { originalMaxAge: 3600_000, expires, httpOnly: true, path: '/', sameSite: 'lax' },
+      userId: user.id,
+      signedInAt,
+    };
     await dataSource.query('INSERT INTO session (sid, sess, expire) VALUES ($1, $2, $3)', [sid, JSON.stringify(sess), expires]);
     // The same signature express-session (cookie-signature) puts on its cookie.
     const mac = createHmac('sha256', config.sessionSecret).update(sid).digest('base64').replace(/=+$/, '');
