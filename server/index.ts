@@ -6,8 +6,9 @@ import { createDataSource } from './db/data-source.js';
 import { ensureAllPeriods } from './features/periods/periods.service.js';
 
 const config = loadConfig();
-const dataSource = await createDataSource(config.databaseUrl).initialize();
-const sessionPool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
+// The app runs as its least-privileged role; migrations ran before, as the owner.
+const dataSource = await createDataSource(config.appDatabaseUrl, { asApp: true }).initialize();
+const sessionPool = new pg.Pool({ connectionString: config.appDatabaseUrl, max: 4 });
 const app = createApp({ config, dataSource, sessionPool, clientDir: resolve(import.meta.dirname, '../dist') });
 
 // Reporting periods begin with the calendar, not with a request: create them now and hourly.

@@ -19,3 +19,13 @@ export const TrailQuery = sortedPageQuery(['occurredAt']).extend({
   siteId: z.uuid().optional(),
 });
 export type TrailQuery = z.infer<typeof TrailQuery>;
+
+/** The trail's hash chain, recomputed entry by entry by the database (trail_chain_break()). */
+export const TrailVerification = z.object({
+  intact: z.boolean(),
+  entries: z.number().int(),
+  head: z.object({ seq: z.number().int(), hash: z.string() }),
+  firstBreak: z.object({ chainSeq: z.number().int(), id: z.string(), reason: z.string() }).nullable(),
+  checkedAt: z.string(),
+});
+export type TrailVerification = z.infer<typeof TrailVerification>;

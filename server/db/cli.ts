@@ -8,4 +8,4 @@ if (command !== 'migrate' && command !== 'seed') {
   console.error('usage: cli.ts migrate|seed');
   process.exit(2);
 }
-await prepareDatabase(config.databaseUrl, { seed: command === 'seed' ? 'explicit' : false });
+await prepareDatabase(config.databaseUrl, { seed: command === 'seed' ? 'explicit' : false, appDatabaseUrl: config.appDatabaseUrl });

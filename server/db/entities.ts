@@ -20,6 +20,7 @@ import { UserSite } from '../kernel/people/user-site.entity.js';
 import { User } from '../kernel/people/user.entity.js';
 import { Company } from '../kernel/sites/company.entity.js';
 import { Site } from '../kernel/sites/site.entity.js';
+import { TrailChainHead } from '../kernel/trail/trail-chain-head.entity.js';
 import { TrailEntry } from '../kernel/trail/trail-entry.entity.js';
 
 /** Every table's entity, listed explicitly so the DataSource needs no glob that differs between tsx and a build. */
@@ -30,6 +31,7 @@ export const entities = [
   UserSite,
   Session,
   TrailEntry,
+  TrailChainHead,
   StoredFile,
   DischargePoint,
   Parameter,

@@ -1,3 +1,4 @@
+import { grantAppRole } from './app-role.js';
 import { createDataSource } from './data-source.js';
 import { seedDemo, type SeedMode } from './seed/seed-demo.js';
 
@@ -8,10 +9,14 @@ const seedOutcomes = {
 };
 
 /**
- * Runs pending migrations, then, when asked, the demo seed (see `seedDemo` for when it adds
- * anything). Used by `npm start`, `npm test` and the CLI.
+ * Runs pending migrations as the owner (`url`), gives the app's role (the user of
+ * `appDatabaseUrl`, when it is another) its privileges, then, when asked, the demo seed (see
+ * `seedDemo` for when it adds anything). Used by `npm start`, `npm test` and the CLI.
  */
-export async function prepareDatabase(url: string, options: { seed: SeedMode | false; reset?: boolean }): Promise<void> {
+export async function prepareDatabase(
+  url: string,
+  options: { seed: SeedMode | false; reset?: boolean; appDatabaseUrl?: string },
+): Promise<void> {
   const dataSource = createDataSource(url);
   await dataSource.initialize();
   try {
@@ -21,6 +26,8 @@ export async function prepareDatabase(url: string, options: { seed: SeedMode | f
     }
     const applied = await dataSource.runMigrations({ transaction: 'each' });
     if (applied.length > 0) console.log(`Applied migrations: ${applied.map((m) => m.name).join(', ')}`);
+    const appRole = options.appDatabaseUrl ? decodeURIComponent(new URL(options.appDatabaseUrl).username) : null;
+    if (appRole && appRole !== decodeURIComponent(new URL(url).username)) await grantAppRole(dataSource, appRole);
     if (options.seed) console.log(seedOutcomes[await seedDemo(dataSource, options.seed)]);
   } finally {
     await dataSource.destroy();

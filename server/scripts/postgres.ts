@@ -138,6 +138,25 @@ function execText(command: string, args: string[]): string {
   return execFileSync(command, args, { encoding: 'utf8' }).trim();
 }
 
+/**
+ * The role the app runs as on the local cluster: it logs in, and can do nothing else until
+ * migrations grant it its privileges (server/db/app-role.ts).
+ */
+export async function ensureAppRole(port: number, role: string, password: string): Promise<void> {
+  const client = new pg.Client({ host: '127.0.0.1', port, user: 'decant', password: 'decant', database: 'postgres' });
+  await client.connect();
+  try {
+    const found = await client.query('SELECT 1 FROM pg_roles WHERE rolname = $1', [role]);
+    if (found.rowCount === 0) {
+      await client.query(
+        `CREATE ROLE "${role.replace(/"/g, '')}" LOGIN NOSUPERUSER NOCREATEDB NOCREATEROLE NOREPLICATION PASSWORD '${password.replace(/'/g, "''")}'`,
+      );
+    }
+  } finally {
+    await client.end();
+  }
+}
+
 /** Creates the database when missing, connecting as the cluster's owner. */
 export async function ensureDatabase(port: number, database: string): Promise<void> {
   const client = new pg.Client({ host: '127.0.0.1', port, user: 'decant', password: 'decant', database: 'postgres' });

@@ -27,7 +27,7 @@ await waitForFreePorts(ports, config.host);
 const demo = process.env.DEMO ? process.env.DEMO === 'true' : !process.env.DATABASE_URL;
 const database = await localDatabase(projectDir, 'decant');
 try {
-  await prepareDatabase(database.url, { seed: demo ? 'when-empty' : false });
+  await prepareDatabase(database.url, { seed: demo ? 'when-empty' : false, appDatabaseUrl: database.appUrl });
   if (!dev) {
     console.log('Building the client…');
     run(resolve(projectDir, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], { cwd: projectDir });
@@ -38,7 +38,13 @@ try {
   throw error;
 }
 
-const shared = { DATABASE_URL: database.url, APP_URL: appUrl, NODE_ENV: dev ? 'development' : 'production', DEMO: String(demo) };
+const shared = {
+  DATABASE_URL: database.url,
+  APP_DATABASE_URL: database.appUrl,
+  APP_URL: appUrl,
+  NODE_ENV: dev ? 'development' : 'production',
+  DEMO: String(demo),
+};
 if (config.oidc.isLocalFake && !process.env.OIDC_ISSUER) {
   startTypeScript('idp/main.ts', { APP_URLS: appUrl, IDP_PORT: String(new URL(config.oidc.issuer).port) });
 }

@@ -36,7 +36,7 @@ try {
   // Caches of tsx and the browser stay inside the project.
   const tmp = resolve(projectDir, '.tmp');
   run('mkdir', ['-p', tmp]);
-  const env = { ...process.env, DATABASE_URL: database.url, NODE_ENV: 'test', TMPDIR: tmp };
+  const env = { ...process.env, DATABASE_URL: database.url, APP_DATABASE_URL: database.appUrl, NODE_ENV: 'test', TMPDIR: tmp };
   console.log('Type checking…');
   run('npm', ['run', '--silent', 'typecheck'], { env });
   // The shape of the code (import boundaries, HTTP-only routes) and its format fail the run too.

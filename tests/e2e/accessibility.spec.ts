@@ -11,7 +11,7 @@ const themes = ['decantLight', 'decantDark'] as const;
 
 describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or critical problem)', () => {
   let stack: LiveStack;
-  let paths: Array<{ name: string; path: string; as: string }>;
+  let paths: Array<{ name: string; path: string; as: string; click?: { button: string; shows: string } }>;
 
   beforeAll(async () => {
     stack = await startLiveStack({ withClient: true });
@@ -42,7 +42,12 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
       { name: 'flow-readings', path: '/periods/flow-readings', as: coordinator },
       { name: 'follow-ups', path: '/follow-ups', as: coordinator },
       { name: 'setup', path: '/setup', as: coordinator },
-      { name: 'trail', path: '/trail', as: 'auditor@decant.test' },
+      {
+        name: 'trail',
+        path: '/trail',
+        as: 'auditor@decant.test',
+        click: { button: '[data-test="verify-chain"]', shows: '[data-test="chain-result"]' },
+      },
       { name: 'people', path: '/setup/people', as: 'admin@decant.test' },
     ];
   });
@@ -66,6 +71,10 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
             await browser.page.goto(`${stack.appUrl}${screen.path}`);
             await browser.page.locator('main h1').first().waitFor();
             await browser.page.waitForLoadState('networkidle');
+            if (screen.click) {
+              await browser.page.click(screen.click.button);
+              await browser.page.locator(screen.click.shows).waitFor();
+            }
             await screenshot(browser.page, `a11y-${screen.name}-${widthName}-${theme === 'decantDark' ? 'dark' : 'light'}`);
             problems.push(...(await seriousAccessibilityProblems(browser.page, `${screen.name} (${widthName}, ${theme})`)));
           }

@@ -6,7 +6,7 @@ import type { DataSource } from 'typeorm';
 import { createIdentityProvider } from '../../idp/identity-provider.js';
 import { createApp } from '../../server/app.js';
 import { createDataSource } from '../../server/db/data-source.js';
-import { testConfig, testDatabaseUrl } from './test-env.js';
+import { testConfig, testAppDatabaseUrl } from './test-env.js';
 
 export interface LiveStack {
   appUrl: string;
@@ -37,8 +37,8 @@ export async function startLiveStack(options: { withClient?: boolean } = {}): Pr
     issuer: idpListener.url,
     client: { clientId: 'decant-test', clientSecret: 'decant-test-secret', appUrls: [appListener.url] },
   });
-  const dataSource = await createDataSource(testDatabaseUrl).initialize();
-  const sessionPool = new pg.Pool({ connectionString: testDatabaseUrl, max: 3 });
+  const dataSource = await createDataSource(testAppDatabaseUrl, { asApp: true }).initialize();
+  const sessionPool = new pg.Pool({ connectionString: testAppDatabaseUrl, max: 3 });
   const clientDir = options.withClient ? resolve(import.meta.dirname, '../../dist') : undefined;
   appListener.server.on('request', createApp({ config, dataSource, sessionPool, clientDir }));
   idpListener.server.on('request', idp);

@@ -5,7 +5,7 @@ import { createApp } from '../../server/app.js';
 import { sessionCookieName } from '../../server/auth/session.js';
 import type { Config } from '../../server/config/env.js';
 import { createDataSource } from '../../server/db/data-source.js';
-import { testConfig, testDatabaseUrl } from './test-env.js';
+import { testAppDatabaseUrl, testConfig } from './test-env.js';
 
 export interface TestApp {
   app: ReturnType<typeof createApp>;
@@ -19,8 +19,9 @@ export interface TestApp {
 
 export async function startTestApp(overrides: Partial<Config> = {}): Promise<TestApp> {
   const config = testConfig(overrides);
-  const dataSource = await createDataSource(testDatabaseUrl).initialize();
-  const sessionPool = new pg.Pool({ connectionString: testDatabaseUrl, max: 2 });
+  // The app under test runs as the app's least-privileged role, as it does in production.
+  const dataSource = await createDataSource(testAppDatabaseUrl, { asApp: true }).initialize();
+  const sessionPool = new pg.Pool({ connectionString: testAppDatabaseUrl, max: 2 });
   const app = createApp({ config, dataSource, sessionPool });
 
   /** A signed-in session cookie for a demo person; `signedInAt` backdates the sign-in. */

@@ -5,6 +5,7 @@ import { Periods1796216400000 } from './1796216400000-Periods.js';
 import { ReportSubmissions1796220000000 } from './1796220000000-ReportSubmissions.js';
 import { MassLimits1796223600000 } from './1796223600000-MassLimits.js';
 import { KeptRecordsRestrict1796227200000 } from './1796227200000-KeptRecordsRestrict.js';
+import { TrailChain1796230800000 } from './1796230800000-TrailChain.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -15,4 +16,5 @@ export const migrations = [
   ReportSubmissions1796220000000,
   MassLimits1796223600000,
   KeptRecordsRestrict1796227200000,
+  TrailChain1796230800000,
 ];

@@ -26,6 +26,8 @@ export type SeedOutcome = 'seeded' | 'not-empty' | 'already-there';
  */
 export async function seedDemo(dataSource: DataSource, mode: SeedMode): Promise<SeedOutcome> {
   return dataSource.transaction(async (manager) => {
+    // The seed writes its own trail entries (seed-trail.ts), like the app.
+    await manager.query(`SET LOCAL decant.via_app = 'on'`);
     if (await manager.existsBy(Company, { name: demoCompany.name })) return 'already-there';
     if (mode === 'when-empty' && ((await manager.count(Company)) > 0 || (await manager.count(User)) > 0)) return 'not-empty';
     const taken = await manager.findBy(User, { email: In(demoPeople.map((person) => person.email)) });

@@ -1,7 +1,9 @@
 import type { DataSource } from 'typeorm';
 import type { Page } from '../../contracts/paging.js';
-import type { TrailEntryView, TrailQuery } from '../../contracts/trail.js';
+import type { TrailEntryView, TrailQuery, TrailVerification } from '../../contracts/trail.js';
 import { queryPage } from '../../db/page.js';
+import { TrailChainHead } from '../../kernel/trail/trail-chain-head.entity.js';
+import { TrailEntry } from '../../kernel/trail/trail-entry.entity.js';
 
 interface TrailRow {
   id: string;
@@ -45,4 +47,22 @@ export function pageTrail(
       after: row.after,
     }),
   );
+}
+
+/** Recomputes the chain in the database and reads its head; both in one snapshot. */
+export async function verifyChain(dataSource: DataSource): Promise<TrailVerification> {
+  return dataSource.transaction('REPEATABLE READ', async (manager) => {
+    // Raw SQL: the check is a database function over the whole table.
+    const breaks: Array<{ chain_seq: string; id: string; reason: string }> = await manager.query('SELECT * FROM trail_chain_break()');
+    const head = await manager.findOneByOrFail(TrailChainHead, { onlyRow: true });
+    const entries = await manager.count(TrailEntry);
+    const first = breaks[0];
+    return {
+      intact: !first && Number(head.seq) === entries,
+      entries,
+      head: { seq: Number(head.seq), hash: head.hash },
+      firstBreak: first ? { chainSeq: Number(first.chain_seq), id: String(first.id), reason: first.reason } : null,
+      checkedAt: new Date().toISOString(),
+    };
+  });
 }

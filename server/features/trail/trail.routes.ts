@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { TrailQuery } from '../../contracts/trail.js';
+import { TrailQuery, TrailVerification } from '../../contracts/trail.js';
 import { endpoint } from '../../http/endpoint.js';
 import { TrailService } from './trail.service.js';
 
@@ -9,6 +9,7 @@ export function trailRoutes(dataSource: DataSource): Router {
   const trail = new TrailService(dataSource);
 
   router.get('/', ...endpoint({ action: 'trail.read', query: TrailQuery }, ({ user, query }) => trail.list(user, query)));
+  router.get('/verification', ...endpoint({ action: 'trail.read', response: TrailVerification }, () => trail.verify()));
 
   return router;
 }

@@ -2,7 +2,11 @@ import { Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 
 @Index('IDX_trail_entry_entity', ['entity', 'entityId'])
 @Index('IDX_trail_entry_site_time', ['siteId', 'occurredAt'])
-/** Append-only: triggers in the database refuse UPDATE, DELETE and TRUNCATE on this table. */
+@Index('UQ_trail_entry_chain_seq', ['chainSeq'], { unique: true })
+/**
+ * Append-only: triggers in the database refuse UPDATE, DELETE and TRUNCATE on this table, and
+ * chain each new entry to the one before (chain_seq, prev_hash, hash are the trigger's to set).
+ */
 @Entity('trail_entry')
 export class TrailEntry {
   @PrimaryGeneratedColumn({ type: 'bigint' })
@@ -34,4 +38,13 @@ export class TrailEntry {
 
   @Column({ type: 'jsonb', nullable: true })
   after: unknown;
+
+  @Column({ type: 'bigint', name: 'chain_seq', insert: false, update: false })
+  chainSeq: string;
+
+  @Column({ type: 'char', name: 'prev_hash', length: 64, insert: false, update: false })
+  prevHash: string;
+
+  @Column({ type: 'char', length: 64, insert: false, update: false })
+  hash: string;
 }
