@@ -64,8 +64,8 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   mountRouter(api, '/health', healthRoutes(dataSource));
   api.use(sessionMiddleware(config, sessionPool));
   api.use(sameOrigin(config.appUrl));
-  api.use(writeRateLimit);
-  api.use(['/auth/sign-in', '/auth/callback'], signInRateLimit);
+  api.use(writeRateLimit());
+  api.use(['/auth/sign-in', '/auth/callback'], signInRateLimit());
   api.use(loadCurrentUser(dataSource));
   mountRouter(api, '/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
   mountRouter(api, '/me', meRoutes(dataSource));

@@ -38,6 +38,9 @@ export async function startLiveStack(options: { withClient?: boolean } = {}): Pr
     client: { clientId: 'decant-test', clientSecret: 'decant-test-secret', appUrls: [appListener.url] },
   });
   const dataSource = await createDataSource(testAppDatabaseUrl, { asApp: true }).initialize();
+  // Each stack's provider is new (its issuer carries a random port), and a person bound to an
+  // earlier provider's subject is never re-bound: the demo people start unbound here.
+  await dataSource.query(`UPDATE app_user SET subject = NULL WHERE email LIKE '%@decant.test'`);
   const sessionPool = new pg.Pool({ connectionString: testAppDatabaseUrl, max: 3 });
   const clientDir = options.withClient ? resolve(import.meta.dirname, '../../dist') : undefined;
   appListener.server.on('request', createApp({ config, dataSource, sessionPool, clientDir }));
