@@ -4,6 +4,7 @@ import { createApp } from './app.js';
 import { loadConfig } from './config/env.js';
 import { createDataSource } from './db/data-source.js';
 import { ensureAllPeriods } from './features/periods/periods.service.js';
+import { dropUnclaimedUploads } from './kernel/files/stored-files.js';
 
 const config = loadConfig();
 // The app runs as its least-privileged role; migrations ran before, as the owner.
@@ -13,8 +14,11 @@ const app = createApp({ config, dataSource, sessionPool, clientDir: resolve(impo
 
 // Reporting periods begin with the calendar, not with a request: create them now and hourly.
 const createDuePeriods = () => ensureAllPeriods(dataSource).catch((error) => console.error('Creating reporting periods failed:', error));
+// Uploads no record claimed within a day (a photo of a check never saved) are dropped hourly too.
+const dropStaleUploads = () =>
+  dropUnclaimedUploads(dataSource.manager).catch((error) => console.error('Dropping unclaimed uploads failed:', error));
 await createDuePeriods();
-setInterval(() => void createDuePeriods(), 60 * 60 * 1000).unref();
+setInterval(() => void Promise.all([createDuePeriods(), dropStaleUploads()]), 60 * 60 * 1000).unref();
 
 const server = app.listen(config.port, config.host, () => {
   console.log(`Decant app listening on ${config.appUrl}`);

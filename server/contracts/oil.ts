@@ -145,6 +145,8 @@ export const OpeningBalanceRequest = z.object({
 export type OpeningBalanceRequest = z.output<typeof OpeningBalanceRequest>;
 
 export const UpkeepCheckListQuery = z.object({ equipmentId: uuid });
+/** The form fields beside an upkeep photo: the site it is taken at. */
+export const PhotoUploadFields = z.object({ siteId: uuid });
 export type UpkeepCheckListQuery = z.output<typeof UpkeepCheckListQuery>;
 
 /** Oil on hand at a site: opening balance + collected − shipped since, against its storage capacity. */

@@ -16,6 +16,11 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   } else if (error?.type === 'entity.parse.failed') {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: { _: 'not JSON' } } };
+  } else if (error?.code === '23505') {
+    // A unique constraint no service named a field for (two requests racing for one number):
+    // the transaction rolled back, so nothing was written.
+    status = 409;
+    body = { error: { code: 'conflict', message: 'A record with these values already exists' } };
   } else if (typeof error?.code === 'string' && error.code.startsWith('22')) {
     // PostgreSQL's data exceptions (a number or date beyond what a column holds) that a contract
     // did not catch first: the transaction rolled back, so nothing was written.

@@ -7,6 +7,8 @@ const parser = multer({
   storage: multer.memoryStorage(),
   // Keep the name as sent, so a name that tries to climb folders is seen and refused, not trimmed.
   preservePath: true,
+  // File names are UTF-8 (busboy reads them as latin1 by default: "Prüfbericht" came out garbled).
+  defParamCharset: 'utf8',
   limits: { fileSize: MAX_UPLOAD_BYTES, files: 1, fields: 10, fieldSize: 2 * 1024 * 1024 },
 });
 

@@ -260,12 +260,14 @@ describe('photos and scans get the same file checks as certificates', () => {
     const photo = await request(t.app)
       .post('/api/upkeep-checks/photos')
       .set('cookie', coordinator)
+      .field('siteId', ids.north)
       .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), 'wiper.jpg')
       .expect(415);
     expect(photo.body.error.fields).toHaveProperty('file');
     await request(t.app)
       .post('/api/upkeep-checks/photos')
       .set('cookie', coordinator)
+      .field('siteId', ids.north)
       .attach('file', Buffer.from('%PDF-1.4\n%%EOF\n'), '../../wiper.jpg')
       .expect((res) => expect([400, 415]).toContain(res.status));
     expect(await t.count('stored_file')).toBe(before);
@@ -277,6 +279,7 @@ describe('photos and scans get the same file checks as certificates', () => {
     const photo = await request(t.app)
       .post('/api/upkeep-checks/photos')
       .set('cookie', coordinator)
+      .field('siteId', ids.north)
       .attach('file', png, 'wiper.png')
       .expect(201);
     expect(photo.body.sha256).toMatch(/^[0-9a-f]{64}$/);
@@ -289,5 +292,76 @@ describe('photos and scans get the same file checks as certificates', () => {
       .attach('file', Buffer.from('%PDF-1.4\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n'), 'manifest.pdf')
       .expect(201);
     expect(scanned.body.files.length).toBeGreaterThan(0);
+  });
+
+  const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
+  const upkeepAt = async (cookie: string, site: string, photoFileId: string) => {
+    const [equipment] = await t.dataSource.query('SELECT id FROM equipment WHERE site_id = $1 AND active ORDER BY name LIMIT 1', [site]);
+    const { body: listing } = await request(t.app).get(`/api/upkeep-checks?equipmentId=${equipment.id}`).set('cookie', cookie).expect(200);
+    const items = listing.checklist.map((item: { key: string }, index: number) => ({
+      key: item.key,
+      outcome: 'pass',
+      photoFileId: index === 0 ? photoFileId : null,
+    }));
+    return request(t.app)
+      .post('/api/upkeep-checks')
+      .set('cookie', cookie)
+      .send({ equipmentId: equipment.id, checkedOn: '2026-01-05', items });
+  };
+
+  it("will not let another site's file be named as a photo, nor read through one", async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const [certificate] = await t.dataSource.query(
+      'SELECT file_id FROM lab_certificate WHERE site_id = $1 AND file_id IS NOT NULL LIMIT 1',
+      [ids.east],
+    );
+    const before = await t.count('upkeep_check');
+    const refused = await upkeepAt(coordinator, ids.north, certificate.file_id);
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields).toHaveProperty('items');
+    expect(await t.count('upkeep_check')).toBe(before);
+    await request(t.app).get(`/api/upkeep-checks/photos/${certificate.file_id}`).set('cookie', coordinator).expect(404);
+  });
+
+  it('gives a photo to one check of its own site, once, and shows it to others only then', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const auditor = await t.sessionFor('auditor@decant.test');
+    const photo = await request(t.app)
+      .post('/api/upkeep-checks/photos')
+      .set('cookie', coordinator)
+      .field('siteId', ids.north)
+      .attach('file', png, 'Prüfbericht.png')
+      .expect(201);
+    expect(photo.body.fileName).toBe('Prüfbericht.png');
+    await request(t.app).get(`/api/upkeep-checks/photos/${photo.body.id}`).set('cookie', auditor).expect(404);
+    expect((await upkeepAt(coordinator, ids.east, photo.body.id)).status).toBe(400);
+    expect((await upkeepAt(coordinator, ids.north, photo.body.id)).status).toBe(201);
+    expect((await upkeepAt(coordinator, ids.north, photo.body.id)).status).toBe(400);
+    await request(t.app).get(`/api/upkeep-checks/photos/${photo.body.id}`).set('cookie', auditor).expect(200);
+    const [trail] = await t.dataSource.query(`SELECT action FROM trail_entry WHERE entity = 'upkeep-photo' AND entity_id = $1`, [
+      photo.body.id,
+    ]);
+    expect(trail).toEqual({ action: 'upload' });
+  });
+
+  it('refuses a file name hiding a direction override', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const response = await request(t.app)
+      .post('/api/upkeep-checks/photos')
+      .set('cookie', coordinator)
+      .field('siteId', ids.north)
+      .attach('file', png, 'wiper\u202Egnp.exe')
+      .expect(400);
+    expect(response.body.error.fields).toHaveProperty('file');
+  });
+
+  it('refuses a photo upload for a site the person may not touch', async () => {
+    const east = await t.sessionFor('coordinator.east@decant.test');
+    await request(t.app)
+      .post('/api/upkeep-checks/photos')
+      .set('cookie', east)
+      .field('siteId', ids.north)
+      .attach('file', png, 'x.png')
+      .expect(403);
   });
 });

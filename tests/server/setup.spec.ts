@@ -149,4 +149,11 @@ describe('set-up records', () => {
   it("keeps a permit's periods even against a direct delete: the foreign key restricts, it does not cascade", async () => {
     await expect(t.dataSource.query('DELETE FROM permit WHERE id = $1', [ids.northPermit])).rejects.toThrow(/foreign key/);
   });
+
+  it('answers 409 naming the field when a site is renamed to a name the company already uses, changing nothing', async () => {
+    const [east] = await t.dataSource.query('SELECT name FROM site WHERE id = $1', [ids.east]);
+    const response = await request(t.app).patch(`/api/sites/${ids.north}`).set('cookie', coordinator).send({ name: east.name }).expect(409);
+    expect(response.body.error.fields).toHaveProperty('name');
+    expect((await t.dataSource.query('SELECT name FROM site WHERE id = $1', [ids.north]))[0].name).toBe('Tamsin Creek Works');
+  });
 });

@@ -6,6 +6,7 @@ import { ReportSubmissions1796220000000 } from './1796220000000-ReportSubmission
 import { MassLimits1796223600000 } from './1796223600000-MassLimits.js';
 import { KeptRecordsRestrict1796227200000 } from './1796227200000-KeptRecordsRestrict.js';
 import { TrailChain1796230800000 } from './1796230800000-TrailChain.js';
+import { FileOwners1796234400000 } from './1796234400000-FileOwners.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -17,4 +18,5 @@ export const migrations = [
   MassLimits1796223600000,
   KeptRecordsRestrict1796227200000,
   TrailChain1796230800000,
+  FileOwners1796234400000,
 ];

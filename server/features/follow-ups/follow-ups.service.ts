@@ -25,7 +25,14 @@ export class FollowUpsService {
       const before = await lockFollowUp(manager, id);
       assertSiteVisible(user, before?.siteId, 'Follow-up');
       if (before!.status !== 'open') throw conflict('This follow-up is already closed');
-      const stored = checkedFile ? await storeFile(manager, file!, checkedFile.mediaType, user.id) : null;
+      const stored = checkedFile
+        ? await storeFile(manager, file!, checkedFile.mediaType, {
+            userId: user.id,
+            siteId: before!.siteId,
+            purpose: 'follow-up-evidence',
+            owner: { entity: 'follow-up', id },
+          })
+        : null;
       const after = await closeFollowUp(manager, id, { note: request.note, ownerId: user.id, fileId: stored?.id ?? null });
       await recordTrail(manager, user, { action: 'close', entity: 'follow-up', entityId: id, siteId: after.siteId, before, after });
       return after;

@@ -10,7 +10,7 @@ import type {
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { conflict, notFound } from '../../errors/app-error.js';
-import { checkUpload, sendStoredFile, storeFile, type Upload } from '../../kernel/files/stored-files.js';
+import { checkUpload, claimStoredFiles, sendStoredFile, storeFile, type Upload } from '../../kernel/files/stored-files.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { writeCertificateContent } from './certificate-content.js';
 import { computeCertificateFlags, limitsInForce, type LimitsInForce } from './lab-flags.service.js';
@@ -83,7 +83,9 @@ export class LabCertificatesService {
   ): Promise<string> {
     const site = await findSiteZone(manager, request.siteId);
     if (!site) throw notFound('Site');
-    const stored = file ? await storeFile(manager, file.upload, file.mediaType, user.id) : null;
+    const stored = file
+      ? await storeFile(manager, file.upload, file.mediaType, { userId: user.id, siteId: request.siteId, purpose: 'certificate' })
+      : null;
     if (await reportNumberTaken(manager, request)) throw duplicateReport();
     const id = await insertCertificateRecord(manager, {
       siteId: request.siteId,
@@ -94,6 +96,13 @@ export class LabCertificatesService {
       fileId: stored?.id ?? null,
       createdBy: user.id,
     });
+    if (stored)
+      await claimStoredFiles(manager, [stored.id], {
+        siteId: request.siteId,
+        purpose: 'certificate',
+        owner: { entity: 'lab-certificate', id },
+        field: 'file',
+      });
     await writeCertificateContent(manager, id, site, request, { replacing: false });
     await computeCertificateFlags(manager, id, { limits });
     return id;
@@ -121,7 +130,12 @@ export class LabCertificatesService {
     const { mediaType } = await checkUpload(upload, ['application/pdf']);
     return this.dataSource.transaction(async (manager) => {
       const before = await this.visible(manager, user, id);
-      const stored = await storeFile(manager, upload!, mediaType, user.id);
+      const stored = await storeFile(manager, upload!, mediaType, {
+        userId: user.id,
+        siteId: before.siteId,
+        purpose: 'certificate',
+        owner: { entity: 'lab-certificate', id },
+      });
       await updateCertificateRecord(manager, id, { fileId: stored.id });
       const after = (await loadCertificate(manager, id))!;
       await recordTrail(manager, user, {

@@ -104,7 +104,12 @@ export class ShipmentsService {
     return this.dataSource.transaction(async (manager) => {
       const before = await visibleShipment(manager, user, id);
       assertMayChange(user, before);
-      const stored = await storeFile(manager, file!, mediaType, user.id);
+      const stored = await storeFile(manager, file!, mediaType, {
+        userId: user.id,
+        siteId: before.siteId,
+        purpose: 'signed-copy',
+        owner: { entity: 'shipment', id: before.id },
+      });
       await attachShipmentFile(manager, before.id, stored.id);
       await recordTrail(manager, user, {
         action: 'attach-file',

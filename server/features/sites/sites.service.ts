@@ -46,7 +46,7 @@ export class SitesService {
 
   async update(user: CurrentUser, id: string, request: UpdateSiteRequest): Promise<SiteSummary> {
     assertSiteVisible(user, id, 'Site');
-    await updateTraced(this.dataSource, user, siteTarget, id, request);
+    await uniquely(() => updateTraced(this.dataSource, user, siteTarget, id, request), 'name', 'A site with this name already exists');
     return (await findSites(this.dataSource, [id]))[0]!;
   }
 

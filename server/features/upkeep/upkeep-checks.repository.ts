@@ -1,6 +1,5 @@
-import { In, type DataSource, type EntityManager } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { UpkeepCheckRequest, UpkeepCheckView } from '../../contracts/oil.js';
-import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import { type User } from '../../kernel/people/user.entity.js';
 import { Equipment } from '../equipment/equipment.entity.js';
 import { UpkeepCheck } from './upkeep-check.entity.js';
@@ -31,20 +30,6 @@ export async function findUpkeepChecks(db: Db, equipmentId: string): Promise<Upk
     .getRepository(UpkeepCheck)
     .find({ where: { equipmentId }, relations: { checkedByRef: true }, order: { checkedOn: 'DESC', createdAt: 'DESC' }, take: 200 });
   return checks.map((check) => view(check, check.checkedByRef!.name));
-}
-
-/** The site of the upkeep check whose items name this photo, if any. */
-export async function findPhotoSiteId(db: Db, fileId: string): Promise<string | undefined> {
-  // Raw SQL: the photo's id sits inside the checklist's JSON items.
-  const [owner]: Array<{ site_id: string }> = await db.query(
-    `SELECT c.site_id FROM upkeep_check c, jsonb_array_elements(c.items) item WHERE item->>'photoFileId' = $1 LIMIT 1`,
-    [fileId],
-  );
-  return owner?.site_id;
-}
-
-export function countStoredFiles(manager: EntityManager, ids: string[]): Promise<number> {
-  return manager.countBy(StoredFile, { id: In(ids) });
 }
 
 export async function insertUpkeepCheck(

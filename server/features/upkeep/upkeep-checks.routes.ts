@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { UpkeepCheckListQuery, UpkeepCheckRequest } from '../../contracts/oil.js';
+import { UpkeepCheckListQuery, UpkeepCheckRequest, PhotoUploadFields } from '../../contracts/oil.js';
 import { FileParams } from '../../contracts/params.js';
 import { endpoint } from '../../http/endpoint.js';
 import { singleUpload } from '../../middleware/upload.js';
@@ -16,7 +16,9 @@ export function upkeepChecksRoutes(dataSource: DataSource): Router {
   );
   router.post(
     '/photos',
-    ...endpoint({ action: 'oil-log.write', before: [singleUpload()], status: 201 }, ({ user, req }) => upkeep.storePhoto(user, req.file)),
+    ...endpoint({ action: 'oil-log.write', before: [singleUpload()], body: PhotoUploadFields, status: 201 }, ({ user, body, req }) =>
+      upkeep.storePhoto(user, body.siteId, req.file),
+    ),
   );
   router.get(
     '/photos/:fileId',

@@ -3,13 +3,13 @@ import { DateTime } from 'luxon';
 import type { DataSource } from 'typeorm';
 import { upkeepItems, type UpkeepCheckRequest, type UpkeepCheckView } from '../../contracts/oil.js';
 import type { CurrentUser } from '../../auth/current-user.js';
-import { assertSiteVisible } from '../../auth/site-access.js';
-import { invalid } from '../../errors/app-error.js';
-import { checkUpload, sendStoredFile, storeFile } from '../../kernel/files/stored-files.js';
+import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
+import { invalid, notFound } from '../../errors/app-error.js';
+import { checkUpload, claimStoredFiles, findStoredFileOwner, sendStoredFile, storeFile } from '../../kernel/files/stored-files.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
-import { countStoredFiles, findEquipmentRef, findPhotoSiteId, findUpkeepChecks, insertUpkeepCheck } from './upkeep-checks.repository.js';
+import { findEquipmentRef, findUpkeepChecks, insertUpkeepCheck } from './upkeep-checks.repository.js';
 
 const photoTypes = ['image/jpeg', 'image/png', 'image/webp', 'image/heic'];
 
@@ -23,14 +23,26 @@ export class UpkeepChecksService {
     return { items: await findUpkeepChecks(this.dataSource, equipmentId), checklist: upkeepItems };
   }
 
-  /** A photo is uploaded first, then named by the check's item (photoFileId). */
-  async storePhoto(user: CurrentUser, file: Express.Multer.File | undefined) {
+  /**
+   * A photo is uploaded first, for a site, then claimed by the check that names it
+   * (photoFileId); one never claimed is dropped after a day.
+   */
+  async storePhoto(user: CurrentUser, siteId: string, file: Express.Multer.File | undefined) {
+    assertSiteAllowed(user, siteId);
     const { mediaType } = await checkUpload(file, photoTypes);
-    return this.dataSource.transaction((manager) => storeFile(manager, file!, mediaType, user.id));
+    return this.dataSource.transaction(async (manager) => {
+      const stored = await storeFile(manager, file!, mediaType, { userId: user.id, siteId, purpose: 'upkeep-photo' });
+      await recordTrail(manager, user, { action: 'upload', entity: 'upkeep-photo', entityId: stored.id, siteId, after: stored });
+      return stored;
+    });
   }
 
+  /** A claimed photo: whoever sees its site. One still waiting: only who uploaded it. */
   async sendPhoto(user: CurrentUser, fileId: string, res: Response): Promise<void> {
-    assertSiteVisible(user, await findPhotoSiteId(this.dataSource, fileId), 'Photo');
+    const file = await findStoredFileOwner(this.dataSource.manager, fileId);
+    const visible =
+      file?.purpose === 'upkeep-photo' && user.siteIds.includes(file.siteId) && (file.owner !== null || file.uploadedBy === user.id);
+    if (!visible) throw notFound('Photo');
     await sendStoredFile(this.dataSource.manager, fileId, res, true);
   }
 
@@ -40,11 +52,15 @@ export class UpkeepChecksService {
       if (!equipment || !user.siteIds.includes(equipment.siteId)) throw invalid({ equipmentId: 'No such equipment at your sites' });
       if (request.checkedOn > (await siteToday(manager, equipment.siteId))) throw invalid({ checkedOn: 'Cannot be in the future' });
       const photoIds = request.items.map((item) => item.photoFileId).filter((id): id is string => id !== null);
-      if (photoIds.length > 0 && (await countStoredFiles(manager, photoIds)) !== new Set(photoIds).size) {
-        throw invalid({ items: 'A photo was not found; upload it first' });
-      }
+      if (photoIds.length !== new Set(photoIds).size) throw invalid({ items: 'Each photo belongs to one item' });
       const failed = request.items.filter((item) => item.outcome === 'fail');
       const after = await insertUpkeepCheck(manager, { ...request, equipment, failedCount: failed.length, checkedBy: user });
+      await claimStoredFiles(manager, photoIds, {
+        siteId: equipment.siteId,
+        purpose: 'upkeep-photo',
+        owner: { entity: 'upkeep-check', id: after.id },
+        field: 'items',
+      });
       if (failed.length > 0) {
         const labels = failed.map((item) => upkeepItems.find((known) => known.key === item.key)!.label.toLowerCase());
         await openFollowUp(manager, {
