@@ -1,5 +1,6 @@
 import ExcelJS from 'exceljs';
 import request from 'supertest';
+import { MAX_IMPORT_ROWS } from '../../server/kernel/spreadsheets/spreadsheet-rows.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { importColumns } from '../../server/contracts/lab-import.js';
 import { demoIds } from '../fixtures/lab.js';
@@ -125,5 +126,31 @@ describe('lab results import', () => {
   it('refuses a header that does not match the template', async () => {
     const response = await post(Buffer.from('a,b,c\n1,2,3'), 'results.csv', false).expect(400);
     expect(response.body.error.fields.file).toMatch(/Missing columns/);
+  });
+
+  it('stops reading at 20,000 rows and refuses the file, writing nothing', async () => {
+    const rows = Array.from({ length: MAX_IMPORT_ROWS + 1 }, (_, index) => csvRow(`CAP-${index}`));
+    const before = await counts();
+    const response = await post(Buffer.from([header, ...rows].join('\n')), 'results.csv', true).expect(400);
+    expect(response.body.error.fields.file).toMatch(/More than 20,000 rows/);
+    expect(await counts()).toEqual(before);
+  });
+
+  it('refuses a cell longer than 1,000 characters, naming its row', async () => {
+    const file = Buffer.from([header, csvRow('LONG-1', { lab_name: 'x'.repeat(1001) })].join('\n'));
+    const response = await post(file, 'results.csv', false).expect(400);
+    expect(response.body.error.fields.file).toMatch(/Row 2, lab_name/);
+  });
+
+  it('checks in the dry run what the commit checks: a negative MDL and a 30-digit value are row errors, not a 500 later', async () => {
+    const file = Buffer.from(
+      [header, csvRow('DRY-1', { mdl: '-1' }), csvRow('DRY-2', { value: '123456789012345678901234567890' })].join('\n'),
+    );
+    const dry = await post(file, 'results.csv', false).expect(200);
+    expect(dry.body.errors.map((error: { row: number; column: string }) => [error.row, error.column])).toEqual([
+      [2, 'mdl'],
+      [3, 'value'],
+    ]);
+    await post(file, 'results.csv', true).expect(400);
   });
 });

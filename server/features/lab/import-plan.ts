@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import type { CreateLabCertificateRequest } from '../../contracts/lab.js';
-import type { ImportColumn, ImportRowError } from '../../contracts/lab-import.js';
+import { CreateLabCertificateRequest } from '../../contracts/lab.js';
+import { importColumns, type ImportColumn, type ImportRowError } from '../../contracts/lab-import.js';
 import { decimalText, isoDate } from '../../contracts/fields.js';
 import { unitNames } from '../../contracts/unit-names.js';
 import type { ImportRow } from '../../kernel/spreadsheets/spreadsheet-rows.js';
@@ -68,7 +68,10 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
     {
       request: CreateLabCertificateRequest;
       firstRow: Record<string, unknown>;
+      firstRowNumber: number;
       samples: Map<string, { index: number; first: Record<string, unknown> }>;
+      /** The spreadsheet row of each result, by sample and result index. */
+      resultRows: number[][];
     }
   >();
   let count = 0;
@@ -108,7 +111,9 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
           samples: [],
         },
         firstRow: data,
+        firstRowNumber: row,
         samples: new Map(),
+        resultRows: [],
       };
       certificates.set(certificateKey, certificate);
     }
@@ -135,6 +140,7 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
     for (const field of sampleFields) {
       if (sample.first[field] !== data[field as keyof typeof data]) fail(row, field, 'Differs from an earlier row of the same sample');
     }
+    (certificate.resultRows[sample.index] ??= []).push(row);
     certificate.request.samples[sample.index]!.results.push({
       parameterId,
       method: data.method,
@@ -148,5 +154,30 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
     });
   }
   if (count === 0) errors.push({ row: 1, column: null, message: 'The file has no rows below its header' });
+  // The dry run checks what the commit will check: each certificate as the JSON route takes it.
+  for (const certificate of certificates.values()) {
+    const checked = CreateLabCertificateRequest.safeParse(certificate.request);
+    if (checked.success) continue;
+    for (const issue of checked.error.issues) {
+      const [first, sampleIndex, second, resultIndex, field] = issue.path;
+      const row =
+        first === 'samples' && typeof sampleIndex === 'number'
+          ? ((second === 'results' && typeof resultIndex === 'number'
+              ? certificate.resultRows[sampleIndex]?.[resultIndex]
+              : certificate.resultRows[sampleIndex]?.[0]) ?? certificate.firstRowNumber)
+          : certificate.firstRowNumber;
+      const key = String(field ?? second ?? first ?? '');
+      fail(row, importColumnOf(key), issue.message);
+    }
+  }
+  errors.sort((a, b) => a.row - b.row);
   return { requests: [...certificates.values()].map((certificate) => certificate.request), errors, rows: count };
+}
+
+/** The template column of a request field ("analysedAt" → "analysed_at"), when there is one. */
+function importColumnOf(field: string): ImportColumn | null {
+  const snake = field.replace(/[A-Z]/g, (letter) => `_${letter.toLowerCase()}`);
+  const renamed: Record<string, string> = { temperature_on_receipt_c: 'temperature_on_receipt' };
+  const column = renamed[snake] ?? snake;
+  return (importColumns as ReadonlyArray<{ key: string }>).some((known) => known.key === column) ? (column as ImportColumn) : null;
 }

@@ -93,6 +93,28 @@ export async function* csvRows<K extends string>(buffer: Buffer, columns: Column
   if (!header) throw invalid({ file: 'The file has no header row' });
 }
 
+/** An import's reach: at most this many rows, each cell at most this long. The read stops at the cap. */
+export const MAX_IMPORT_ROWS = 20_000;
+export const MAX_CELL_LENGTH = 1_000;
+
+async function* capped<K extends string>(rows: AsyncGenerator<ImportRow<K>>): AsyncGenerator<ImportRow<K>> {
+  let count = 0;
+  for await (const row of rows) {
+    count += 1;
+    if (count > MAX_IMPORT_ROWS) {
+      throw invalid(
+        { file: `More than ${MAX_IMPORT_ROWS.toLocaleString('en-US')} rows: split the file` },
+        'The file is too long to import',
+      );
+    }
+    const long = Object.entries(row.cells).find(([, value]) => typeof value === 'string' && value.length > MAX_CELL_LENGTH);
+    if (long) {
+      throw invalid({ file: `Row ${row.row}, ${long[0]}: longer than ${MAX_CELL_LENGTH} characters` }, 'A cell is too long to import');
+    }
+    yield row;
+  }
+}
+
 export const xlsxType = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet';
 
 /** The rows of an uploaded XLSX (by its content) or CSV (text, named .csv); anything else is a 415. */
@@ -102,9 +124,9 @@ export async function spreadsheetRows<K extends string>(
 ): Promise<AsyncGenerator<ImportRow<K>>> {
   if (!file || file.size === 0) throw invalid({ file: 'Attach an XLSX or CSV file' });
   const type = await fileTypeFromBuffer(file.buffer);
-  if (type?.mime === xlsxType) return xlsxRows<K>(file.buffer, columns);
+  if (type?.mime === xlsxType) return capped(xlsxRows<K>(file.buffer, columns));
   const looksLikeText = !type && !file.buffer.subarray(0, 4096).includes(0);
-  if (looksLikeText && /\.csv$/i.test(file.originalname)) return csvRows<K>(file.buffer, columns);
+  if (looksLikeText && /\.csv$/i.test(file.originalname)) return capped(csvRows<K>(file.buffer, columns));
   throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', { file: 'Expected XLSX or CSV' });
 }
 
