@@ -52,6 +52,21 @@ describe('lab certificates', () => {
     expect(inline.headers['content-disposition']).toMatch(/^inline/);
   });
 
+  it("treats a report number typed with other case, full-width digits or a hidden character as the same (409), and another site's as none of its business", async () => {
+    const first = certificateBody(ids);
+    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(first).expect(201);
+    const twin = {
+      ...certificateBody(ids),
+      labName: ` ${first.labName.toUpperCase()}`,
+      reportNumber: `\u200B${first.reportNumber.toLowerCase()}`,
+    };
+    const refused = await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(twin).expect(409);
+    expect(refused.body.error.fields).toHaveProperty('reportNumber');
+    const elsewhere = certificateBody(ids, { siteId: ids.east, reportNumber: first.reportNumber });
+    (elsewhere.samples[0] as { dischargePointId: string }).dischargePointId = ids.eastOutfall;
+    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(elsewhere).expect(201);
+  });
+
   it('records the creation and a later edit in the trail, with before and after', async () => {
     const created = await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(certificateBody(ids)).expect(201);
     const { siteId, samples, id, reportNumber, ...rest } = created.body;

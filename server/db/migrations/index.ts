@@ -7,6 +7,7 @@ import { MassLimits1796223600000 } from './1796223600000-MassLimits.js';
 import { KeptRecordsRestrict1796227200000 } from './1796227200000-KeptRecordsRestrict.js';
 import { TrailChain1796230800000 } from './1796230800000-TrailChain.js';
 import { FileOwners1796234400000 } from './1796234400000-FileOwners.js';
+import { DocumentKeys1796238000000 } from './1796238000000-DocumentKeys.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -19,4 +20,5 @@ export const migrations = [
   KeptRecordsRestrict1796227200000,
   TrailChain1796230800000,
   FileOwners1796234400000,
+  DocumentKeys1796238000000,
 ];

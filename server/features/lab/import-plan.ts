@@ -4,6 +4,7 @@ import { importColumns, type ImportColumn, type ImportRowError } from '../../con
 import { decimalText, isoDate } from '../../contracts/fields.js';
 import { unitNames } from '../../contracts/unit-names.js';
 import type { ImportRow } from '../../kernel/spreadsheets/spreadsheet-rows.js';
+import { reportKey } from './lab.repository.js';
 
 const blankToNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : value.trim());
 const localTime = z
@@ -91,13 +92,13 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
     const parameterId = lookups.parameterIds.get(data.parameter_code);
     if (!pointId) fail(row, 'discharge_point_code', 'No discharge point with this code at the site');
     if (!parameterId) fail(row, 'parameter_code', 'No parameter with this code');
-    if (lookups.existingReports.has(`${data.lab_name}\u0000${data.report_number}`)) {
+    if (lookups.existingReports.has(reportKey(data.lab_name, data.report_number))) {
       fail(row, 'report_number', 'This lab already has a certificate with this report number');
     }
     if (data.qualifier === '<' && Number(data.value) <= 0) fail(row, 'value', 'With "<" the value is the reporting limit, above zero');
     if (!pointId || !parameterId) continue;
 
-    const certificateKey = `${data.lab_name}\u0000${data.report_number}`;
+    const certificateKey = reportKey(data.lab_name, data.report_number);
     let certificate = certificates.get(certificateKey);
     if (!certificate) {
       certificate = {

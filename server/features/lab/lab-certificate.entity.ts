@@ -1,10 +1,11 @@
-import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { Flag } from '../../contracts/flags.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
 
-@Unique('lab_certificate_lab_name_report_number_key', ['labName', 'reportNumber'])
+// Unique by site and the compared form of lab and report number: an expression index (migration DocumentKeys).
+@Index('UQ_lab_certificate_report', { synchronize: false })
 @Index('IDX_lab_certificate_site_received', ['siteId', 'receivedOn'])
 @Entity('lab_certificate')
 export class LabCertificate {

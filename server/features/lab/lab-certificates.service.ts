@@ -31,7 +31,7 @@ function siteScope(user: CurrentUser, siteId: string | undefined): string[] {
 }
 
 const duplicateReport = () =>
-  conflict('This lab already has a certificate with this report number', { reportNumber: 'Already recorded for this lab' });
+  conflict('This site already has a certificate of this lab with this report number', { reportNumber: 'Already recorded for this lab at this site' });
 
 /** Lab certificates: written whole, in one transaction with their trail entry and their checks. */
 export class LabCertificatesService {
@@ -111,7 +111,7 @@ export class LabCertificatesService {
   async update(user: CurrentUser, id: string, request: UpdateLabCertificateRequest): Promise<CertificateDetail> {
     return this.dataSource.transaction(async (manager) => {
       const before = await this.visible(manager, user, id);
-      if (await reportNumberTaken(manager, request, id)) throw duplicateReport();
+      if (await reportNumberTaken(manager, { ...request, siteId: before.siteId }, id)) throw duplicateReport();
       await updateCertificateRecord(manager, id, {
         labName: request.labName,
         labAccreditationNumber: request.labAccreditationNumber,

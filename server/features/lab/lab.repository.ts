@@ -1,5 +1,6 @@
+import { documentKey } from '../../domain/document-key.js';
 import { DateTime } from 'luxon';
-import { Not, type DataSource, type DeepPartial, type EntityManager, type QueryDeepPartialEntity } from 'typeorm';
+import type { DataSource, DeepPartial, EntityManager, QueryDeepPartialEntity } from 'typeorm';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { type Parameter } from '../parameters/parameter.entity.js';
 import { LabCertificate } from './lab-certificate.entity.js';
@@ -299,6 +300,9 @@ export async function pageResults(
   );
 }
 
+/** How an import recognises a report: lab and number in their compared form. */
+export const reportKey = (labName: string, reportNumber: string) => `${documentKey(labName)}\u0000${documentKey(reportNumber)}`;
+
 /** What an import's rows are read against: the site's point and parameter codes, and the reports already kept. */
 export async function importLookups(db: Db, siteId: string) {
   const points: Array<{ code: string; id: string }> = await db.query('SELECT code, id FROM discharge_point WHERE site_id = $1', [siteId]);
@@ -306,12 +310,15 @@ export async function importLookups(db: Db, siteId: string) {
     'SELECT code, id FROM parameter WHERE site_id IS NULL OR site_id = $1 ORDER BY site_id NULLS FIRST',
     [siteId],
   );
-  const reports: Array<{ lab_name: string; report_number: string }> = await db.query('SELECT lab_name, report_number FROM lab_certificate');
+  const reports: Array<{ lab_name: string; report_number: string }> = await db.query(
+    'SELECT lab_name, report_number FROM lab_certificate WHERE site_id = $1',
+    [siteId],
+  );
   return {
     siteId,
     pointIds: new Map(points.map((row) => [row.code, row.id])),
     parameterIds: new Map(parameters.map((row) => [row.code, row.id])),
-    existingReports: new Set(reports.map((row) => `${row.lab_name}\u0000${row.report_number}`)),
+    existingReports: new Set(reports.map((row) => reportKey(row.lab_name, row.report_number))),
   };
 }
 
@@ -329,11 +336,20 @@ export async function findSiteZone(db: Db, siteId: string): Promise<{ id: string
   return db.getRepository(Site).findOne({ where: { id: siteId }, select: { id: true, timeZone: true } });
 }
 
-/** Whether the lab already has a certificate with this report number (other than `exceptId`). */
-export function reportNumberTaken(db: Db, report: { labName: string; reportNumber: string }, exceptId?: string): Promise<boolean> {
-  return db.getRepository(LabCertificate).exists({
-    where: { labName: report.labName, reportNumber: report.reportNumber, ...(exceptId ? { id: Not(exceptId) } : {}) },
-  });
+/** Whether the site already keeps this lab's report number, compared by document_key(). */
+export function reportNumberTaken(
+  db: Db,
+  report: { siteId: string; labName: string; reportNumber: string },
+  exceptId?: string,
+): Promise<boolean> {
+  return db
+    .getRepository(LabCertificate)
+    .createQueryBuilder('c')
+    .where('c.siteId = :siteId', { siteId: report.siteId })
+    .andWhere('document_key(c.labName) = document_key(:labName)', { labName: report.labName })
+    .andWhere('document_key(c.reportNumber) = document_key(:reportNumber)', { reportNumber: report.reportNumber })
+    .andWhere(exceptId ? 'c.id <> :exceptId' : 'TRUE', { exceptId })
+    .getExists();
 }
 
 export async function insertCertificateRecord(manager: EntityManager, certificate: DeepPartial<LabCertificate>): Promise<string> {

@@ -1,15 +1,4 @@
-import {
-  Check,
-  Column,
-  CreateDateColumn,
-  Entity,
-  Index,
-  JoinColumn,
-  ManyToOne,
-  PrimaryGeneratedColumn,
-  Unique,
-  UpdateDateColumn,
-} from 'typeorm';
+import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -21,7 +10,8 @@ import { User } from '../../kernel/people/user.entity.js';
 @Check('shipment_quantity_check', `(quantity > (0)::numeric)`)
 @Check('shipment_quantity_unit_check', `((quantity_unit)::text = ANY ((ARRAY['gal'::character varying, 'L'::character varying])::text[]))`)
 @Check('shipment_check', `((signed_copy_received_on IS NULL) OR (signed_copy_received_on >= shipped_on))`)
-@Unique('shipment_site_id_document_kind_document_number_key', ['siteId', 'documentKind', 'documentNumber'])
+// Unique by site, kind and the compared form of the number: an expression index (migration DocumentKeys).
+@Index('UQ_shipment_document', { synchronize: false })
 @Index('IDX_shipment_site_day', ['siteId', 'shippedOn'])
 @Entity('shipment')
 export class Shipment {
