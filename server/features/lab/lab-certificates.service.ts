@@ -31,7 +31,9 @@ function siteScope(user: CurrentUser, siteId: string | undefined): string[] {
 }
 
 const duplicateReport = () =>
-  conflict('This site already has a certificate of this lab with this report number', { reportNumber: 'Already recorded for this lab at this site' });
+  conflict('This site already has a certificate of this lab with this report number', {
+    reportNumber: 'Already recorded for this lab at this site',
+  });
 
 /** Lab certificates: written whole, in one transaction with their trail entry and their checks. */
 export class LabCertificatesService {
