@@ -1,6 +1,8 @@
 import ExcelJS from 'exceljs';
+import JSZip from 'jszip';
 import request from 'supertest';
 import { MAX_IMPORT_ROWS } from '../../server/kernel/spreadsheets/spreadsheet-rows.js';
+import { MAX_WORKBOOK_UNPACKED_BYTES } from '../../server/kernel/spreadsheets/workbook-guard.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { importColumns } from '../../server/contracts/lab-import.js';
 import { demoIds } from '../fixtures/lab.js';
@@ -152,5 +154,30 @@ describe('lab results import', () => {
       [3, 'value'],
     ]);
     await post(file, 'results.csv', true).expect(400);
+  });
+
+  const templateWorkbook = async () => {
+    const workbook = new ExcelJS.Workbook();
+    const sheet = workbook.addWorksheet('Results');
+    sheet.addRow(importColumns.map((column) => column.key));
+    return JSZip.loadAsync(Buffer.from(await workbook.xlsx.writeBuffer()));
+  };
+
+  it('refuses a workbook whose XML declares a document type (entity expansion), writing nothing', async () => {
+    const zip = await templateWorkbook();
+    const sheet = await zip.file('xl/worksheets/sheet1.xml')!.async('string');
+    zip.file('xl/worksheets/sheet1.xml', sheet.replace('?>', '?><!DOCTYPE worksheet [<!ENTITY lol "lol">]>'));
+    const file = await zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE' });
+    const response = await post(file, 'results.xlsx', false).expect(400);
+    expect(response.body.error.fields.file).toMatch(/declares a document type/);
+  });
+
+  it('refuses a workbook that unpacks to more than 200 MB before reading it', async () => {
+    const zip = await templateWorkbook();
+    zip.file('xl/media/padding.bin', Buffer.alloc(MAX_WORKBOOK_UNPACKED_BYTES + 1));
+    const file = await zip.generateAsync({ type: 'nodebuffer', compression: 'DEFLATE', compressionOptions: { level: 9 } });
+    expect(file.length).toBeLessThan(2 * 1024 * 1024);
+    const response = await post(file, 'results.xlsx', false).expect(400);
+    expect(response.body.error.fields.file).toMatch(/more than 200 MB/);
   });
 });

@@ -5,6 +5,7 @@ import { importColumns } from '../../contracts/lab-import.js';
 import { fileTypeFromBuffer } from 'file-type';
 import { AppError, invalid } from '../../errors/app-error.js';
 import type { Upload } from '../files/stored-files.js';
+import { checkWorkbook } from './workbook-guard.js';
 
 export interface ImportRow<K extends string = (typeof importColumns)[number]['key']> {
   /** The spreadsheet's own row number (the header is row 1). */
@@ -124,7 +125,10 @@ export async function spreadsheetRows<K extends string>(
 ): Promise<AsyncGenerator<ImportRow<K>>> {
   if (!file || file.size === 0) throw invalid({ file: 'Attach an XLSX or CSV file' });
   const type = await fileTypeFromBuffer(file.buffer);
-  if (type?.mime === xlsxType) return capped(xlsxRows<K>(file.buffer, columns));
+  if (type?.mime === xlsxType) {
+    await checkWorkbook(file.buffer);
+    return capped(xlsxRows<K>(file.buffer, columns));
+  }
   const looksLikeText = !type && !file.buffer.subarray(0, 4096).includes(0);
   if (looksLikeText && /\.csv$/i.test(file.originalname)) return capped(csvRows<K>(file.buffer, columns));
   throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', { file: 'Expected XLSX or CSV' });
