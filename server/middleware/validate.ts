@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
+import { hasUnsafeText } from '../domain/unsafe-text.js';
 import { invalid } from '../errors/app-error.js';
 import { validatedParts } from '../http/validated-parts.js';
 
@@ -21,18 +22,10 @@ export function fieldsOf(error: z.ZodError, prefix?: string): Record<string, str
   return fields;
 }
 
-/**
- * Characters no record may hold: C0 controls other than tab, line feed and carriage return
- * (PostgreSQL text cannot store NUL at all), and the bidirectional overrides and isolates that
- * make text display in another order than it is stored.
- */
-// eslint-disable-next-line no-control-regex -- finding control characters is the point
-const forbiddenText = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F\u202A-\u202E\u2066-\u2069]/;
-
 /** Field paths of every string in `value` holding a forbidden character. */
 export function unsafeTextFields(value: unknown, path: string[] = []): Record<string, string> {
   if (typeof value === 'string') {
-    return forbiddenText.test(value) ? { [path.join('.') || '_']: 'Contains a control or direction-override character' } : {};
+    return hasUnsafeText(value) ? { [path.join('.') || '_']: 'Contains a control or direction-override character' } : {};
   }
   if (value === null || typeof value !== 'object') return {};
   return Object.assign(
@@ -40,7 +33,7 @@ export function unsafeTextFields(value: unknown, path: string[] = []): Record<st
     ...Object.entries(value).map(([key, inner]) => unsafeTextFields(inner, [...path, key])),
     // A key may be hostile too.
     ...Object.keys(value)
-      .filter((key) => forbiddenText.test(key))
+      .filter((key) => hasUnsafeText(key))
       .map((key) => ({ [[...path, key].join('.')]: 'Contains a control or direction-override character' })),
   );
 }

@@ -46,14 +46,20 @@ export function useSiteOverview(siteId: Ref<string | undefined>) {
   );
 
   async function loadAttention(id: string, timeZone: string): Promise<Attention> {
-    const followUps = (await followUpsApi.page({ siteId: id, status: 'open', pageSize: 5 })).items;
-    const hem = session.can('lab.read') ? (await parametersApi.list(id)).items.find((p) => p.fraction === 'HEM') : undefined;
+    // The three lists do not depend on each other: asked for at once.
+    const [followUpPage, parameters, periods] = await Promise.all([
+      followUpsApi.page({ siteId: id, status: 'open', pageSize: 5 }),
+      session.can('lab.read') ? parametersApi.list(id) : null,
+      session.can('periods.read') ? periodsApi.list(id) : null,
+    ]);
+    const followUps = followUpPage.items;
+    const hem = parameters?.items.find((p) => p.fraction === 'HEM');
     let currentPeriod: PeriodListItem | null = null;
     const monitoring = new Map<string, MonitoringLine>();
     let dailyMaximumAt = new Map<string, string>();
-    if (session.can('periods.read')) {
+    if (periods) {
       const today = localDate(timeZone);
-      currentPeriod = (await periodsApi.list(id)).items.find((p) => p.startsOn <= today && p.endsOn >= today) ?? null;
+      currentPeriod = periods.items.find((p) => p.startsOn <= today && p.endsOn >= today) ?? null;
       if (currentPeriod) {
         const summary = await periodsApi.summary(currentPeriod.id);
         for (const row of summary.rows)

@@ -295,6 +295,8 @@ describe('photos and scans get the same file checks as certificates', () => {
   });
 
   const png = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108060000001f15c489', 'hex');
+  const uploadPhoto = (cookie: string, site: string, name: string) =>
+    request(t.app).post('/api/upkeep-checks/photos').set('cookie', cookie).field('siteId', site).attach('file', png, name);
   const upkeepAt = async (cookie: string, site: string, photoFileId: string) => {
     const [equipment] = await t.dataSource.query('SELECT id FROM equipment WHERE site_id = $1 AND active ORDER BY name LIMIT 1', [site]);
     const { body: listing } = await request(t.app).get(`/api/upkeep-checks?equipmentId=${equipment.id}`).set('cookie', cookie).expect(200);
@@ -326,12 +328,7 @@ describe('photos and scans get the same file checks as certificates', () => {
   it('gives a photo to one check of its own site, once, and shows it to others only then', async () => {
     const coordinator = await t.sessionFor('coordinator@decant.test');
     const auditor = await t.sessionFor('auditor@decant.test');
-    const photo = await request(t.app)
-      .post('/api/upkeep-checks/photos')
-      .set('cookie', coordinator)
-      .field('siteId', ids.north)
-      .attach('file', png, 'Prüfbericht.png')
-      .expect(201);
+    const photo = await uploadPhoto(coordinator, ids.north, 'Prüfbericht.png').expect(201);
     expect(photo.body.fileName).toBe('Prüfbericht.png');
     await request(t.app).get(`/api/upkeep-checks/photos/${photo.body.id}`).set('cookie', auditor).expect(404);
     expect((await upkeepAt(coordinator, ids.east, photo.body.id)).status).toBe(400);
@@ -346,22 +343,12 @@ describe('photos and scans get the same file checks as certificates', () => {
 
   it('refuses a file name hiding a direction override', async () => {
     const coordinator = await t.sessionFor('coordinator@decant.test');
-    const response = await request(t.app)
-      .post('/api/upkeep-checks/photos')
-      .set('cookie', coordinator)
-      .field('siteId', ids.north)
-      .attach('file', png, 'wiper\u202Egnp.exe')
-      .expect(400);
+    const response = await uploadPhoto(coordinator, ids.north, 'wiper\u202Egnp.exe').expect(400);
     expect(response.body.error.fields).toHaveProperty('file');
   });
 
   it('refuses a photo upload for a site the person may not touch', async () => {
     const east = await t.sessionFor('coordinator.east@decant.test');
-    await request(t.app)
-      .post('/api/upkeep-checks/photos')
-      .set('cookie', east)
-      .field('siteId', ids.north)
-      .attach('file', png, 'x.png')
-      .expect(403);
+    await uploadPhoto(east, ids.north, 'x.png').expect(403);
   });
 });

@@ -342,14 +342,14 @@ export function reportNumberTaken(
   report: { siteId: string; labName: string; reportNumber: string },
   exceptId?: string,
 ): Promise<boolean> {
-  return db
+  const query = db
     .getRepository(LabCertificate)
     .createQueryBuilder('c')
     .where('c.siteId = :siteId', { siteId: report.siteId })
     .andWhere('document_key(c.labName) = document_key(:labName)', { labName: report.labName })
-    .andWhere('document_key(c.reportNumber) = document_key(:reportNumber)', { reportNumber: report.reportNumber })
-    .andWhere(exceptId ? 'c.id <> :exceptId' : 'TRUE', { exceptId })
-    .getExists();
+    .andWhere('document_key(c.reportNumber) = document_key(:reportNumber)', { reportNumber: report.reportNumber });
+  if (exceptId) query.andWhere('c.id <> :exceptId', { exceptId });
+  return query.getExists();
 }
 
 export async function insertCertificateRecord(manager: EntityManager, certificate: DeepPartial<LabCertificate>): Promise<string> {

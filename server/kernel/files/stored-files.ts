@@ -4,6 +4,7 @@ import type { Response } from 'express';
 import { In, IsNull, type EntityManager } from 'typeorm';
 import { StoredFile } from './stored-file.entity.js';
 import type { StoredFileView } from '../../contracts/lab.js';
+import { hasUnsafeText } from '../../domain/unsafe-text.js';
 import { AppError, invalid } from '../../errors/app-error.js';
 
 export const MAX_UPLOAD_BYTES = 20 * 1024 * 1024;
@@ -20,14 +21,7 @@ export interface Upload {
  */
 function checkFileName(name: string): void {
   // Direction overrides too: "invoice\u202Efdp.exe" would display as "invoiceexe.pdf".
-  if (
-    !name ||
-    name.length > 200 ||
-    // eslint-disable-next-line no-control-regex -- refusing control characters is the point
-    /[\\/\x00-\x1f\x7f\u202a-\u202e\u2066-\u2069]/.test(name) ||
-    name.includes('..') ||
-    /^[.\s]/.test(name)
-  ) {
+  if (!name || name.length > 200 || hasUnsafeText(name) || /[\\/\t\n\r]/.test(name) || name.includes('..') || /^[.\s]/.test(name)) {
     throw invalid({ file: 'The file name is not acceptable (no folders, no control characters, at most 200 characters)' });
   }
 }
