@@ -27,7 +27,7 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
   router.get('/sign-in', validate({ query: SignInQuery }), async (req, res) => {
     // validate() has checked it; parsing again gives its typed value without a cast.
     const query = SignInQuery.parse(req.query);
-    const { url, state, nonce, codeVerifier } = await oidc.authorizationUrl(query.loginHint);
+    const { url, state, nonce, codeVerifier } = await oidc.authorizationUrl(query.loginHint, query.reauthenticate === '1');
     req.session.pendingSignIn = { state, nonce, codeVerifier, returnTo: safeReturnPath(query.returnTo) };
     // An anonymous visitor's session row lives only as long as a sign-in may take.
     if (!req.session.userId) req.session.cookie.maxAge = PENDING_SIGN_IN_MS;
@@ -65,6 +65,9 @@ export function authRoutes(config: Config, dataSource: DataSource, oidc: OidcRel
       req.session.userId = user.id;
       req.session.idToken = identity.idToken;
       req.session.signedInAt = Date.now();
+      // The provider's auth_time (seconds) when it sent one: a re-authentication before a signature sets it anew.
+      const authTime = typeof identity.claims.auth_time === 'number' ? identity.claims.auth_time * 1000 : Date.now();
+      req.session.authenticatedAt = Math.min(authTime, Date.now());
       req.session.save(() => res.redirect(pending.returnTo));
     });
   });

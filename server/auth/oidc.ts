@@ -27,7 +27,8 @@ export class OidcRelyingParty {
     }
   }
 
-  async authorizationUrl(loginHint?: string) {
+  /** `reauthenticate`: the provider must ask for the credentials again (OpenID Connect `prompt=login`, `max_age=0`). */
+  async authorizationUrl(loginHint?: string, reauthenticate = false) {
     const configuration = await this.discover();
     const codeVerifier = client.randomPKCECodeVerifier();
     const state = client.randomState();
@@ -40,6 +41,7 @@ export class OidcRelyingParty {
       state,
       nonce,
       ...(loginHint ? { login_hint: loginHint } : {}),
+      ...(reauthenticate ? { prompt: 'login', max_age: '0' } : {}),
     });
     return { url, state, nonce, codeVerifier };
   }

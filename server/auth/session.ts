@@ -9,6 +9,8 @@ declare module 'express-session' {
     idToken?: string;
     /** When the person signed in (ms since the epoch): the session ends SESSION_ABSOLUTE_MS after, however active. */
     signedInAt?: number;
+    /** When the provider last authenticated the person (ms since the epoch; its `auth_time`): a signature needs a recent one. */
+    authenticatedAt?: number;
     /** What the sign-in redirect must find again at the callback. */
     pendingSignIn?: { state: string; nonce: string; codeVerifier: string; returnTo: string };
   }
@@ -22,6 +24,13 @@ export const SESSION_IDLE_MS = 12 * 60 * 60 * 1000;
 export const SESSION_ABSOLUTE_MS = 24 * 60 * 60 * 1000;
 /** A sign-in started but not finished is kept 10 minutes, not a whole session's life. */
 export const PENDING_SIGN_IN_MS = 10 * 60 * 1000;
+/** A signature needs an authentication no older than this; past it the provider asks again. */
+export const RECENT_AUTHENTICATION_MS = 15 * 60 * 1000;
+
+/** When the session's person was last authenticated by the provider (the sign-in time if it did not say). */
+export function authenticatedAt(session: Partial<{ authenticatedAt: number; signedInAt: number }> | undefined): number {
+  return session?.authenticatedAt ?? session?.signedInAt ?? 0;
+}
 
 /**
  * Sessions live in PostgreSQL (table `session`, created by a migration), so they survive a

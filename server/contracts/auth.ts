@@ -4,6 +4,8 @@ import { z } from 'zod';
 export const SignInQuery = z.object({
   returnTo: z.string().max(500).optional(),
   loginHint: z.email().max(254).optional(),
+  /** '1': ask the provider to authenticate the person again (before a signature), whatever its session. */
+  reauthenticate: z.literal('1').optional(),
 });
 export type SignInQuery = z.output<typeof SignInQuery>;
 

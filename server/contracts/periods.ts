@@ -24,7 +24,9 @@ export const Exceedance = z.object({
 export type Exceedance = z.infer<typeof Exceedance>;
 
 export const LimitRow = z.object({
-  limitId: z.string(),
+  limitId: doc(z.string(), 'The limit version the row judges'),
+  appliesFrom: doc(z.string(), 'The first day of the period this version judged (a later version judges the days after it)'),
+  appliesTo: doc(z.string(), 'The last day of the period this version judged'),
   dischargePointId: z.string(),
   pointCode: z.string(),
   parameterId: z.string(),
@@ -58,6 +60,14 @@ export const LimitRow = z.object({
     "For a monthly average: each calendar month's average of its daily discharges (40 CFR 122.2)",
   ),
   exceedances: z.array(Exceedance),
+  inputsWithFindings: doc(
+    z.array(z.string()),
+    'Results counted in the row that carry a lab finding (holding time, temperature, QC, no analysis time); counted as reported',
+  ),
+  grabsOverOnCompliantDays: doc(
+    z.array(z.object({ day: z.string(), grabValue: z.number(), dayValue: z.number() })),
+    "For a daily maximum judged on the day's average: days where one grab was over the limit but the day's discharge was within it",
+  ),
 });
 export type LimitRow = z.infer<typeof LimitRow>;
 
@@ -85,12 +95,44 @@ export const PeriodSummaryCore = z.object({
 });
 export type PeriodSummaryCore = z.infer<typeof PeriodSummaryCore>;
 
+/** Something signing must not be blind to: a lab finding, a missed sample, an open violation follow-up. */
+export const SignOffItem = z.object({
+  kind: z.enum(['lab-finding', 'missed-sample', 'open-follow-up']),
+  id: doc(z.string(), 'The result, monitoring unit or follow-up it is about'),
+  text: z.string(),
+});
+export type SignOffItem = z.infer<typeof SignOffItem>;
+
+export const Signature = z.object({
+  revision: z.number(),
+  signerName: z.string(),
+  signerTitle: z.string(),
+  signedAt: z.string(),
+  statementSection: z.string(),
+  sha256: doc(z.string(), 'SHA-256 of the signed snapshot (summary, inputs, signer, statement, trail head)'),
+  trailHead: doc(z.object({ seq: z.string(), hash: z.string() }), "The trail chain's head when the period was signed"),
+  amendmentReason: doc(z.string().nullable(), 'For revision 2 and later: why the period was amended'),
+});
+export type Signature = z.infer<typeof Signature>;
+
+export const OpenAmendment = z.object({
+  id: z.string(),
+  amendsRevision: z.number(),
+  reason: z.string(),
+  openedByName: z.string(),
+  openedAt: z.string(),
+});
+export type OpenAmendment = z.infer<typeof OpenAmendment>;
+
 export const PeriodSummary = PeriodSummaryCore.extend({
   periodId: z.string(),
   permitId: z.string(),
   siteId: z.string(),
   period: z.object({ start: z.string(), end: z.string(), due: z.string() }),
-  status: doc(z.string(), 'open, compiled; signed and amended come with reporting'),
+  status: doc(z.string(), 'open, compiled (a draft), signed (the figures are the signed snapshot), amended (an amendment is open)'),
+  revision: doc(z.number(), 'Signed revisions so far: 0 until the first signature'),
+  signature: doc(Signature.nullable(), 'The signed revision this summary is, or (while amended) the last one signed'),
+  amendment: doc(OpenAmendment.nullable(), 'The open amendment, while the period is amended'),
   compiledAt: z.string(),
   oil: doc(
     z.object({ collectedLitres: z.number(), shippedLitres: z.number(), onHandAtEndLitres: z.number().nullable() }),
@@ -119,6 +161,58 @@ export type PeriodListQuery = z.output<typeof PeriodListQuery>;
 export const SubmissionRequest = z.object({ submittedOn: isoDate });
 export type SubmissionRequest = z.output<typeof SubmissionRequest>;
 
+/** What signing asks: the statement of the permit's kind, and what must be acknowledged. */
+export const SignOffChecklist = z.object({
+  canSign: z.boolean(),
+  reasonNotSignable: z.string().nullable(),
+  statementSection: z.string(),
+  statement: z.string(),
+  items: z.array(SignOffItem),
+  compiledAt: z.string().nullable(),
+  recentSignInRequired: doc(z.boolean(), 'True when the signer must sign in again (last authentication over 15 minutes ago)'),
+});
+export type SignOffChecklist = z.infer<typeof SignOffChecklist>;
+
+export const SignRequest = z.object({
+  compiledAt: doc(z.iso.datetime({ offset: true }), 'The compile the signer reviewed: signing refuses if the records changed since'),
+  statementAccepted: z.literal(true, 'Accept the certification statement to sign'),
+  acknowledged: doc(z.boolean(), 'Every listed finding, missed sample and open follow-up was reviewed'),
+  acknowledgementNote: z.string().trim().max(2000).nullable().default(null),
+  signerName: z.string().trim().min(1, 'Enter the name of the person signing').max(200),
+  signerTitle: z.string().trim().min(1, 'Enter the title of the person signing').max(200),
+});
+export type SignRequest = z.output<typeof SignRequest>;
+
+export const AmendRequest = z.object({ reason: z.string().trim().min(1, 'Say why the period is amended').max(2000) });
+export type AmendRequest = z.output<typeof AmendRequest>;
+
+/** What changed between a revision and the one before it. */
+export const RevisionChanges = z.object({
+  values: z.array(z.object({ row: z.string(), before: z.string().nullable(), after: z.string().nullable() })),
+  verdicts: z.array(z.object({ row: z.string(), before: z.string(), after: z.string() })),
+  exceedancesAdded: z.array(z.object({ row: z.string(), date: z.string(), value: z.string() })),
+  exceedancesRemoved: z.array(z.object({ row: z.string(), date: z.string(), value: z.string() })),
+});
+export type RevisionChanges = z.infer<typeof RevisionChanges>;
+
+export const Revision = Signature.extend({
+  changes: doc(RevisionChanges.nullable(), 'What changed from the revision before; null for revision 1'),
+});
+export type Revision = z.infer<typeof Revision>;
+
+export const RevisionParams = z.object({ id: uuid, revision: z.coerce.number().int().min(1).max(1000) });
+export type RevisionParams = z.output<typeof RevisionParams>;
+
+/** The content hashes of what a signed period was compiled from. */
+export const SignatureInputs = z.object({
+  results: z.array(z.tuple([z.string(), z.string()])),
+  certificates: z.array(z.tuple([z.string(), z.string()])),
+  flows: z.array(z.tuple([z.string(), z.string()])),
+  limitVersions: z.array(z.tuple([z.string(), z.string()])),
+  permitSettings: z.string(),
+});
+export type SignatureInputs = z.infer<typeof SignatureInputs>;
+
 export const periodStatuses = ['open', 'compiled', 'signed', 'amended'] as const;
 export type PeriodStatus = (typeof periodStatuses)[number];
 
@@ -139,4 +233,5 @@ export interface PeriodListItem {
   /** The site's today when the list was read. */
   today: string;
   compiledAt: string | null;
+  revision: number;
 }

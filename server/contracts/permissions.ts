@@ -29,6 +29,8 @@ export const actions = [
   'shipments.write',
   'periods.read',
   'periods.compile',
+  'periods.sign',
+  'periods.amend',
   'follow-ups.read',
   'follow-ups.close',
   'trail.read',
@@ -55,6 +57,9 @@ export const permissionTable: Record<Action, readonly Role[]> = {
   'shipments.write': ['coordinator', 'operator'],
   'periods.read': ['coordinator', 'auditor'],
   'periods.compile': ['coordinator'],
+  // Signing vouches for the figures under penalty of law: a permission of its own, so it can be given to a named signatory.
+  'periods.sign': ['coordinator'],
+  'periods.amend': ['coordinator'],
   'follow-ups.read': recordKeepers,
   'follow-ups.close': ['coordinator'],
   'trail.read': ['administrator', 'coordinator', 'auditor'],

@@ -68,6 +68,8 @@ export const PermitFields = z.object({
   massLoadingFactor: z.union([z.literal(8.34), z.literal(8.3454)], 'Either 8.34 or 8.3454').default(8.34),
   sncWindow: z.enum(['calendar-halves', 'rolling']).default('calendar-halves'),
   lateReportDays: z.number().int().min(1).max(365).default(45),
+  /** Sampling days (two grabs on one day are one sampling event; common practice) or every sample. */
+  monitoringCounts: z.enum(['sampling-days', 'samples']).default('sampling-days'),
 });
 const effectiveOrder = (permit: { effectiveFrom?: string; effectiveTo?: string | null }) =>
   !permit.effectiveFrom || !permit.effectiveTo || permit.effectiveTo >= permit.effectiveFrom;

@@ -18,6 +18,8 @@ export async function grantAppRole(dataSource: DataSource, role: string): Promis
     `GRANT USAGE, SELECT ON ALL SEQUENCES IN SCHEMA public TO ${name}`,
     `REVOKE UPDATE, DELETE, TRUNCATE, REFERENCES, TRIGGER ON trail_entry FROM ${name}`,
     `REVOKE INSERT, UPDATE, DELETE, TRUNCATE ON trail_chain_head FROM ${name}`,
+    // Signed revisions and amendments are appended, never changed (their triggers refuse it too).
+    `REVOKE UPDATE, DELETE, TRUNCATE ON period_signature, period_amendment FROM ${name}`,
     `REVOKE ALL ON migrations FROM ${name}`,
   ]) {
     await dataSource.query(statement);

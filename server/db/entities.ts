@@ -9,6 +9,8 @@ import { LabSample } from '../features/lab/lab-sample.entity.js';
 import { QcBatch } from '../features/lab/qc-batch.entity.js';
 import { OilLogEntry } from '../features/oil-log/oil-log-entry.entity.js';
 import { Parameter } from '../features/parameters/parameter.entity.js';
+import { PeriodAmendment } from '../features/periods/period-amendment.entity.js';
+import { PeriodSignature } from '../features/periods/period-signature.entity.js';
 import { ReportingPeriod } from '../features/periods/reporting-period.entity.js';
 import { PermitLimit } from '../features/permits/permit-limit.entity.js';
 import { Permit } from '../features/permits/permit.entity.js';
@@ -49,4 +51,6 @@ export const entities = [
   FollowUp,
   FlowReading,
   ReportingPeriod,
+  PeriodAmendment,
+  PeriodSignature,
 ];

@@ -90,6 +90,26 @@ export function holdingTimeExceeded(collectedAt: Date, analysedAt: Date, timeZon
   return analysedAt.getTime() > deadline.toMillis();
 }
 
+/**
+ * Flags that are findings about how a result was obtained (sample handling, holding time,
+ * laboratory QC), as opposed to judgements against a limit: a period summary counts such
+ * results as reported, and signing lists them for acknowledgement.
+ */
+export const labFindingCodes = [
+  'collected-in-future',
+  'preservation-not-confirmed',
+  'warm-on-receipt',
+  'analysed-before-collected',
+  'holding-time',
+  'no-analysis-time',
+  'field-composite',
+  'qc-opr',
+  'qc-ms-recovery',
+  'qc-msd-recovery',
+  'qc-rpd',
+  'qc-method-blank',
+];
+
 export function checkResult(result: ResultFacts, sample: SampleFacts, limits: LimitFacts[], timeZone: string): Flag[] {
   const flags: Flag[] = [];
   const value = Number(result.valueReported);
@@ -103,6 +123,14 @@ export function checkResult(result: ResultFacts, sample: SampleFacts, limits: Li
       code: 'holding-time',
       severity: 'error',
       message: `Analysed more than ${HOLDING_TIME_DAYS} days after collection`,
+      source: `${source1664} §8.5; 40 CFR 136.3 Table II`,
+    });
+  }
+  if (oilAndGrease && !result.analysedAt) {
+    flags.push({
+      code: 'no-analysis-time',
+      severity: 'warning',
+      message: `No analysis time: the ${HOLDING_TIME_DAYS}-day holding time cannot be checked`,
       source: `${source1664} §8.5; 40 CFR 136.3 Table II`,
     });
   }

@@ -16,6 +16,14 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   } else if (error?.type === 'entity.parse.failed') {
     status = 400;
     body = { error: { code: 'invalid_json', message: 'The request body is not valid JSON', fields: { _: 'not JSON' } } };
+  } else if (error?.code === 'DL409') {
+    // The database's lock on what a signed period was compiled from (migration PeriodSignOff).
+    status = 409;
+    body = { error: { code: 'period_signed', message: `${error.message}. ${error.hint ?? ''}`.trim() } };
+  } else if (error?.code === '23P01') {
+    // An exclusion constraint: two versions of one limit would apply on the same day.
+    status = 409;
+    body = { error: { code: 'conflict', message: 'Another version of this limit already applies on those days', fields: { appliesFrom: 'Overlaps another version' } } };
   } else if (error?.code === '23505') {
     // A unique constraint no service named a field for (two requests racing for one number):
     // the transaction rolled back, so nothing was written.

@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import { createDataSource } from '../../server/db/data-source.js';
 import { prepareDatabase } from '../../server/db/prepare.js';
 import { findPeriod } from '../../server/features/periods/periods.repository.js';
-import { summarise } from '../../server/features/periods/periods.service.js';
+import { summarise } from '../../server/features/periods/summarise.js';
 import { localDatabase } from '../../server/scripts/local-database.js';
 
 // `npm run bench`: a site with 10 discharge points × 6 parameters sampled daily for 5 years;

@@ -19,6 +19,8 @@ const limit = (statistic: LimitInput['statistic'], value: number, extra: Partial
   unit: 'mg/L',
   frequencyCount: 2,
   frequencyPer: 'month',
+  appliesFrom: '2000-01-01',
+  appliesTo: null,
   ...extra,
 });
 let counter = 0;
@@ -42,6 +44,7 @@ const input = (limits: LimitInput[], measurements: Measurement[], extra: Partial
     massLoadingFactor: 8.34,
     dailyMaxAppliesToEachGrab: false,
     sncWindow: 'calendar-halves',
+    monitoringCounts: 'samples',
   },
   period: { start: '2026-01-01', end: '2026-03-31' },
   limits,
@@ -72,6 +75,7 @@ describe('daily discharges and statistics (40 CFR 122.2)', () => {
           massLoadingFactor: 8.34,
           dailyMaxAppliesToEachGrab: true,
           sncWindow: 'calendar-halves',
+    monitoringCounts: 'samples',
         },
       }),
     );
@@ -137,6 +141,7 @@ describe('non-detects', () => {
           massLoadingFactor: 8.34,
           dailyMaxAppliesToEachGrab: false,
           sncWindow: 'calendar-halves',
+    monitoringCounts: 'samples',
         },
       }),
     );
@@ -151,6 +156,7 @@ describe('non-detects', () => {
         massLoadingFactor: 8.34,
         dailyMaxAppliesToEachGrab: false,
         sncWindow: 'calendar-halves' as const,
+        monitoringCounts: 'samples' as const,
       },
     };
     const withoutMdl = (extra: Partial<Measurement> = {}) => m('2026-01-20', 2, { qualifier: '<', mdl: null, ml: null, ...extra });
@@ -234,6 +240,7 @@ describe('mass limits (40 CFR 122.2 "daily discharge": the total mass over the d
           massLoadingFactor: 8.3454,
           dailyMaxAppliesToEachGrab: false,
           sncWindow: 'calendar-halves',
+    monitoringCounts: 'samples',
         },
       }),
     );
@@ -364,6 +371,7 @@ describe('significant noncompliance (40 CFR 403.8(f)(2)(viii))', () => {
           massLoadingFactor: 8.34,
           dailyMaxAppliesToEachGrab: false,
           sncWindow: 'calendar-halves',
+    monitoringCounts: 'samples',
         },
       }),
     );
@@ -381,7 +389,8 @@ describe('properties (fast-check)', () => {
       fc.property(fc.array(sample, { minLength: 1, maxLength: 40 }), (samples) => {
         const summary = compilePeriod(
           input(
-            [limit('monthly-average', 50)],
+            // Not a Method 1664 parameter: every value is counted as measured (none is "<ML").
+            [limit('monthly-average', 50, { method1664: false })],
             samples.map((s) => m(s.day, s.value)),
           ),
         );

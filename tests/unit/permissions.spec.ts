@@ -25,6 +25,8 @@ const expected: Record<Role, Action[]> = {
     'shipments.write',
     'periods.read',
     'periods.compile',
+    'periods.sign',
+    'periods.amend',
     'follow-ups.read',
     'follow-ups.close',
     'trail.read',

@@ -8,6 +8,7 @@ import { KeptRecordsRestrict1796227200000 } from './1796227200000-KeptRecordsRes
 import { TrailChain1796230800000 } from './1796230800000-TrailChain.js';
 import { FileOwners1796234400000 } from './1796234400000-FileOwners.js';
 import { DocumentKeys1796238000000 } from './1796238000000-DocumentKeys.js';
+import { PeriodSignOff1796241600000 } from './1796241600000-PeriodSignOff.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -21,4 +22,5 @@ export const migrations = [
   TrailChain1796230800000,
   FileOwners1796234400000,
   DocumentKeys1796238000000,
+  PeriodSignOff1796241600000,
 ];

@@ -1,4 +1,4 @@
-import { METHOD_DETECTION_LIMIT } from '../method-1664.js';
+import { METHOD_DETECTION_LIMIT, MINIMUM_LEVEL } from '../method-1664.js';
 import { dailyDischarges, type DailyDischarge } from './daily-discharges.js';
 import { toLimitUnit, type FlowOn, type ToLimitUnit } from './limit-units.js';
 import { monitoringChecker, type MonitoringCheck } from './monitoring.js';
@@ -42,15 +42,39 @@ interface Context {
   input: PeriodInput;
   inPeriod: ByPointAndParameter<Measurement>;
   flowOn: FlowOn;
-  monitoring: (limit: LimitInput, discharges: DailyDischarge[]) => MonitoringCheck;
+  monitoring: (limit: LimitInput, span: Span, discharges: DailyDischarge[]) => MonitoringCheck;
   scaleFor: (limit: LimitInput) => ToLimitUnit;
-  /** A point's daily discharges of a parameter, shared by its limits (a daily maximum and a monthly average, say). */
-  dischargesOf: (limit: LimitInput, measurements: Measurement[]) => DailyDischarge[];
+  /** A point's daily discharges of a parameter over a span, shared by its limits (a daily maximum and a monthly average, say). */
+  dischargesOf: (limit: LimitInput, span: Span, measurements: Measurement[]) => DailyDischarge[];
 }
 
-function limitRow(limit: LimitInput, context: Context): LimitRow {
+/** Days from `start` through `end`, inclusive. */
+interface Span {
+  start: string;
+  end: string;
+}
+
+/** The days of the period a limit version judged, or null when it was not in force during the period. */
+export function versionSpan(limit: Pick<LimitInput, 'appliesFrom' | 'appliesTo'>, period: Span): Span | null {
+  const start = limit.appliesFrom > period.start ? limit.appliesFrom : period.start;
+  const end = limit.appliesTo !== null && limit.appliesTo < period.end ? limit.appliesTo : period.end;
+  return start <= end ? { start, end } : null;
+}
+
+/**
+ * EPA Method 1664 §12.3.1: a result below the minimum level of quantitation is reported as
+ * "<ML" (<5.0 mg/L), not as its measured number; the summary counts it as it is reported, a
+ * non-detect at the ML. The lab's own ML applies where it reported one.
+ */
+export function asReported(measurement: Measurement): Measurement {
+  if (measurement.qualifier !== null) return measurement;
+  const ml = measurement.ml ?? MINIMUM_LEVEL;
+  return measurement.value < ml ? { ...measurement, qualifier: '<', ml } : measurement;
+}
+
+function limitRow(limit: LimitInput, span: Span, context: Context): LimitRow {
   const { permit } = context.input;
-  const inPeriod = context.inPeriod.get(limit.dischargePointId, limit.parameterId);
+  const inPeriod = context.inPeriod.get(limit.dischargePointId, limit.parameterId).filter((m) => m.day >= span.start && m.day <= span.end);
   const scale = context.scaleFor(limit);
   const rule = precisionRule(limit);
   const shown = (value: Figure | null) => shownFigure(value, rule);
@@ -63,7 +87,7 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
     ...evidence(measurements),
   });
 
-  const discharges = context.dischargesOf(limit, inPeriod);
+  const discharges = context.dischargesOf(limit, span, inPeriod);
   const days: LimitDay[] = [];
   const daysWithoutFlow: string[] = [];
   for (const discharge of discharges) {
@@ -71,10 +95,11 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
     if (value === null) daysWithoutFlow.push(discharge.day);
     else days.push({ day: discharge.day, value, allNonDetect: discharge.allNonDetect, source: discharge });
   }
-  const monitoring = context.monitoring(limit, discharges);
+  const monitoring = context.monitoring(limit, span, discharges);
   let computedValue: Figure | null = null;
   let monthlyValues: LimitRow['monthlyValues'] = [];
   let exceedances: Exceedance[] = [];
+  const grabsOverOnCompliantDays: LimitRow['grabsOverOnCompliantDays'] = [];
 
   switch (limit.statistic) {
     case 'daily-maximum': {
@@ -89,6 +114,15 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
           if (m.qualifier === '<' || daysOver.has(m.day)) continue;
           const value = scale(m.value, m.day);
           if (value !== null && value > limit.value) exceedances.push(exceedance(m.day, value, [m]));
+        }
+      } else {
+        // Judged on the day's average, one grab may be over while the day is within: said so, as
+        // the certificate flags that grab and would otherwise seem to disagree.
+        for (const day of days) {
+          if (day.value > limit.value) continue;
+          const grabs = day.source.measurements.filter((m) => m.qualifier === null).map((m) => scale(m.value, m.day) ?? -Infinity);
+          const highest = Math.max(...grabs);
+          if (highest > limit.value) grabsOverOnCompliantDays.push({ day: day.day, grabValue: highest, dayValue: day.value });
         }
       }
       break;
@@ -134,6 +168,8 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
       : exceedances.length > 0 || exceeds(computedValue, limit.value);
   return {
     limitId: limit.id,
+    appliesFrom: span.start,
+    appliesTo: span.end,
     dischargePointId: limit.dischargePointId,
     pointCode: limit.pointCode,
     parameterId: limit.parameterId,
@@ -152,6 +188,8 @@ function limitRow(limit: LimitInput, context: Context): LimitRow {
     dailyValues: days.map((day) => ({ day: day.day, value: day.allNonDetect ? '<ML' : day.value, massLoading: day.source.massLoading })),
     monthlyValues,
     exceedances,
+    inputsWithFindings: inPeriod.filter((m) => m.hasFinding).map((m) => m.resultId),
+    grabsOverOnCompliantDays,
   };
 }
 
@@ -172,8 +210,8 @@ function contextOf(input: PeriodInput): Context {
     return scale;
   };
   const discharges = new Map<string, DailyDischarge[]>();
-  const dischargesOf = (limit: LimitInput, measurements: Measurement[]) => {
-    const key = `${limit.dischargePointId}|${limit.parameterId}`;
+  const dischargesOf = (limit: LimitInput, span: Span, measurements: Measurement[]) => {
+    const key = `${limit.dischargePointId}|${limit.parameterId}|${span.start}|${span.end}`;
     let days = discharges.get(key);
     if (!days) {
       const flowOnDay = (day: string) => flowOn(limit.dischargePointId, day);
@@ -185,19 +223,22 @@ function contextOf(input: PeriodInput): Context {
     }
     return days;
   };
-  const checkMonitoring = monitoringChecker(input.period);
+  const checkers = new Map<string, ReturnType<typeof monitoringChecker>>();
   const checks = new Map<string, MonitoringCheck>();
-  const monitoring = (limit: LimitInput, discharges: DailyDischarge[]) => {
-    const key = `${limit.dischargePointId}|${limit.parameterId}|${limit.frequencyCount}|${limit.frequencyPer}`;
+  const bySamplingDay = input.permit.monitoringCounts === 'sampling-days';
+  const monitoring = (limit: LimitInput, span: Span, discharges: DailyDischarge[]) => {
+    const spanKey = `${span.start}|${span.end}`;
+    const key = `${limit.dischargePointId}|${limit.parameterId}|${limit.frequencyCount}|${limit.frequencyPer}|${spanKey}`;
     let check = checks.get(key);
-    if (!check)
-      checks.set(
-        key,
-        (check = checkMonitoring(
-          limit,
-          discharges.map((d) => ({ day: d.day, samples: d.measurements.length })),
-        )),
+    if (!check) {
+      let checker = checkers.get(spanKey);
+      if (!checker) checkers.set(spanKey, (checker = monitoringChecker({ ...span, asOf: input.period.asOf })));
+      check = checker(
+        limit,
+        discharges.map((d) => ({ day: d.day, samples: bySamplingDay ? 1 : d.measurements.length })),
       );
+      checks.set(key, check);
+    }
     return check;
   };
   return { input, inPeriod, flowOn, monitoring, scaleFor, dischargesOf };
@@ -234,12 +275,19 @@ function significantNoncompliance(input: PeriodInput, context: Context): PeriodS
  * Compiles a reporting period against every limit of the permit. Pure: the same input gives
  * the same summary, so recompiling is safe and testable without a database.
  */
-export function compilePeriod(input: PeriodInput): PeriodSummaryCore {
+export function compilePeriod(given: PeriodInput): PeriodSummaryCore {
+  const method1664 = new Set(given.limits.filter((l) => l.method1664).map((l) => l.parameterId));
+  const input = { ...given, measurements: given.measurements.map((m) => (method1664.has(m.parameterId) ? asReported(m) : m)) };
   const context = contextOf(input);
+  // One row per limit version in force during the period: a period straddling a change shows both.
+  const rows = input.limits.flatMap((limit) => {
+    const span = versionSpan(limit, input.period);
+    return span ? [limitRow(limit, span, context)] : [];
+  });
   return {
     nonDetectPolicy: input.permit.nonDetectPolicy,
     massLoadingFactor: input.permit.massLoadingFactor,
-    rows: input.limits.map((limit) => limitRow(limit, context)),
+    rows,
     significantNoncompliance: significantNoncompliance(input, context),
   };
 }

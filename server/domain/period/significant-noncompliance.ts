@@ -66,6 +66,8 @@ export function sncVerdict(
     let over = false;
     let atReviewLevel = false;
     for (const { limit, scale, isMaximum } of judgeAt(m.dischargePointId)) {
+      // Each measurement is held to the version of the limit in force on its day.
+      if (m.day < limit.appliesFrom || (limit.appliesTo !== null && m.day > limit.appliesTo)) continue;
       const value = scale(m.value, m.day);
       if (value === null) continue;
       held = true;

@@ -9,6 +9,11 @@ export interface PermitSettings {
   massLoadingFactor: number;
   dailyMaxAppliesToEachGrab: boolean;
   sncWindow: 'calendar-halves' | 'rolling';
+  /**
+   * What a monitoring frequency counts: sampling days (two grabs on one day are one sampling
+   * event; common practice, no published source) or every sample. A permit setting.
+   */
+  monitoringCounts: 'sampling-days' | 'samples';
 }
 
 export interface LimitInput {
@@ -31,6 +36,10 @@ export interface LimitInput {
   unit: string;
   frequencyCount: number;
   frequencyPer: 'day' | 'week' | 'month' | 'quarter';
+  /** The first day this version of the limit applies. */
+  appliesFrom: string;
+  /** The last day it applies; null while in force. */
+  appliesTo: string | null;
 }
 
 export interface Measurement {
@@ -45,6 +54,8 @@ export interface Measurement {
   value: number;
   mdl: number | null;
   ml: number | null;
+  /** The result carries a lab finding (holding time, temperature, QC, no analysis time…). */
+  hasFinding?: boolean;
 }
 
 export interface FlowReading {

@@ -65,7 +65,8 @@ export async function computeCertificateFlags(
         : null,
     });
     qcFlags.set(batch.id, flags);
-    await manager.query('UPDATE qc_batch SET flags = $2 WHERE id = $1', [batch.id, JSON.stringify(flags)]);
+    // Only what changed is written: a recheck leaves the rows of a signed period untouched (and allowed).
+    await manager.query('UPDATE qc_batch SET flags = $2 WHERE id = $1 AND flags IS DISTINCT FROM $2::jsonb', [batch.id, JSON.stringify(flags)]);
   }
 
   const samples = await manager.query('SELECT * FROM lab_sample WHERE certificate_id = $1', [certificateId]);
@@ -115,15 +116,19 @@ export async function computeCertificateFlags(
   }
   // One statement each for samples and results, however many a certificate has.
   await manager.query(
-    `UPDATE lab_sample s SET flags = v.flags::jsonb FROM unnest($1::uuid[], $2::text[]) AS v(id, flags) WHERE s.id = v.id`,
+    `UPDATE lab_sample s SET flags = v.flags::jsonb FROM unnest($1::uuid[], $2::text[]) AS v(id, flags)
+      WHERE s.id = v.id AND s.flags IS DISTINCT FROM v.flags::jsonb`,
     [sampleUpdates.map((u) => u[0]), sampleUpdates.map((u) => u[1])],
   );
   await manager.query(
     `UPDATE lab_result r SET flags = v.flags::jsonb, flag_codes = CASE WHEN v.codes = '' THEN '{}' ELSE string_to_array(v.codes, ',') END
-       FROM unnest($1::uuid[], $2::text[], $3::text[]) AS v(id, flags, codes) WHERE r.id = v.id`,
+       FROM unnest($1::uuid[], $2::text[], $3::text[]) AS v(id, flags, codes) WHERE r.id = v.id AND r.flags IS DISTINCT FROM v.flags::jsonb`,
     [resultUpdates.map((u) => u[0]), resultUpdates.map((u) => u[1]), resultUpdates.map((u) => u[2])],
   );
-  await manager.query('UPDATE lab_certificate SET flags = $2 WHERE id = $1', [certificateId, JSON.stringify(summarise(all))]);
+  await manager.query('UPDATE lab_certificate SET flags = $2 WHERE id = $1 AND flags IS DISTINCT FROM $2::jsonb', [
+    certificateId,
+    JSON.stringify(summarise(all)),
+  ]);
 }
 
 /** One flag per code for the certificate, the most severe first, with how often it occurs. */
@@ -154,7 +159,11 @@ export function limitsInForce(manager: EntityManager): LimitsInForce {
     if (!limits) {
       limits = manager
         .query(
-          `SELECT l.parameter_id, l.statistic, l.value, l.unit, l.sample_type, p.effective_from::text AS effective_from, p.effective_to::text AS effective_to
+          // A limit version applies while both it and its permit are in force.
+          `SELECT l.parameter_id, l.statistic, l.value, l.unit, l.sample_type,
+                  greatest(p.effective_from, l.applies_from)::text AS effective_from,
+                  (CASE WHEN p.effective_to IS NULL THEN l.applies_to WHEN l.applies_to IS NULL THEN p.effective_to
+                        ELSE least(p.effective_to, l.applies_to) END)::text AS effective_to
              FROM permit_limit l JOIN permit p ON p.id = l.permit_id WHERE l.discharge_point_id = $1`,
           [pointId],
         )

@@ -4,6 +4,7 @@ import { sncWindows } from '../../domain/period/significant-noncompliance.js';
 import type { LimitInput, Measurement, PeriodInput, PermitSettings } from '../../domain/period/types.js';
 import { queryArrays } from '../../db/array-rows.js';
 import { inParallel } from '../../db/in-parallel.js';
+import { labFindingCodes } from '../../domain/lab-checks.js';
 import { convert, measuredUnitFor } from '../../domain/units.js';
 
 // Raw SQL throughout: a period's inputs are read set-based, tens of thousands of rows at a time.
@@ -22,6 +23,8 @@ interface LimitRow {
   unit: string;
   frequency_count: number;
   frequency_per: LimitInput['frequencyPer'];
+  applies_from: string;
+  applies_to: string | null;
 }
 
 interface FlowRow {
@@ -49,6 +52,8 @@ export interface PeriodRecord {
   settings: PermitSettings;
   lateReportDays: number;
   submittedOn: string | null;
+  /** Signed revisions so far. */
+  revision: number;
   /** The site's today, read with the period so no caller asks again. */
   today: string;
 }
@@ -65,6 +70,7 @@ type ResultRow = [
   unit: string,
   mdl: string | null,
   ml: string | null,
+  hasFinding: boolean,
 ];
 
 /** A decimal from the database in the target unit; null when absent or not convertible. */
@@ -79,11 +85,16 @@ function inUnit(text: string | null, unit: string, target: string): number | nul
  * (through the point/day indexes), each in the base unit of what is measured.
  */
 export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<PeriodInput> {
+  const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, period.settings.sncWindow);
+  const from = [period.startsOn, ...windows.map((w) => w.start)].sort()[0]!;
+  // The limit versions in force on any day from the earliest six-month window to the period's end.
   const limitRows: LimitRow[] = await db.query(
-    `SELECT l.*, d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor, p.fraction
+    `SELECT l.*, l.applies_from::text AS applies_from, l.applies_to::text AS applies_to,
+            d.code AS point_code, p.name AS parameter_name, p.code AS parameter_code, p.snc_review_factor, p.fraction
        FROM permit_limit l JOIN discharge_point d ON d.id = l.discharge_point_id JOIN parameter p ON p.id = l.parameter_id
-      WHERE l.permit_id = $1 ORDER BY d.code, p.name, l.statistic`,
-    [period.permitId],
+      WHERE l.permit_id = $1 AND l.applies_from <= $3 AND (l.applies_to IS NULL OR l.applies_to >= $2)
+      ORDER BY d.code, p.name, l.statistic, l.applies_from`,
+    [period.permitId, from, period.endsOn],
   );
   const limits: LimitInput[] = limitRows.map((row) => ({
     id: row.id,
@@ -100,9 +111,9 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
     unit: row.unit,
     frequencyCount: row.frequency_count,
     frequencyPer: row.frequency_per,
+    appliesFrom: row.applies_from,
+    appliesTo: row.applies_to,
   }));
-  const windows = sncWindows({ start: period.startsOn, end: period.endsOn }, period.settings.sncWindow);
-  const from = [period.startsOn, ...windows.map((w) => w.start)].sort()[0]!;
   const pointIds = [...new Set(limits.map((l) => l.dischargePointId))];
   const parameterIds = [...new Set(limits.map((l) => l.parameterId))];
   // Each result is carried in the base unit of what its limits measure (a mass limit measures a concentration),
@@ -119,10 +130,11 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
       queryArrays(
         db,
         `SELECT r.id, s.certificate_id, array_position($1::uuid[], s.discharge_point_id) - 1, array_position($2::uuid[], r.parameter_id) - 1,
-              s.collected_on::text, r.qualifier, r.value, r.unit, CASE WHEN r.qualifier = '<' THEN r.mdl END, CASE WHEN r.qualifier = '<' THEN r.ml END
+              s.collected_on::text, r.qualifier, r.value, r.unit, CASE WHEN r.qualifier = '<' THEN r.mdl END, r.ml,
+              r.flag_codes && $5::text[] OR EXISTS (SELECT 1 FROM jsonb_array_elements(s.flags) f WHERE f->>'code' = ANY($5::text[]))
          FROM lab_sample s JOIN lab_result r ON r.sample_id = s.id
         WHERE s.discharge_point_id = ANY($1::uuid[]) AND r.parameter_id = ANY($2::uuid[]) AND s.collected_on BETWEEN $3 AND $4`,
-        [pointIds, parameterIds, from, period.endsOn],
+        [pointIds, parameterIds, from, period.endsOn, labFindingCodes],
       ),
     (): Promise<FlowRow[]> =>
       db.query(
@@ -131,7 +143,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
       ),
   );
   const measurements: Measurement[] = [];
-  for (const [resultId, certificateId, point, parameter, day, qualifier, value, unit, mdl, ml] of results as ResultRow[]) {
+  for (const [resultId, certificateId, point, parameter, day, qualifier, value, unit, mdl, ml, hasFinding] of results as ResultRow[]) {
     const target = measuredUnits[point]?.[parameter];
     if (!target) continue;
     const measured = inUnit(value, unit, target);
@@ -146,6 +158,7 @@ export async function loadPeriodInput(db: Db, period: PeriodRecord): Promise<Per
       value: measured,
       mdl: inUnit(mdl, unit, target),
       ml: inUnit(ml, unit, target),
+      hasFinding,
     });
   }
 

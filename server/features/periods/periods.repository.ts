@@ -29,13 +29,15 @@ interface PeriodRow {
   mass_loading_factor: string;
   daily_max_applies_to_each_grab: boolean;
   snc_window: PeriodRecord['settings']['sncWindow'];
+  monitoring_counts: PeriodRecord['settings']['monitoringCounts'];
+  revision: number;
   today: string;
 }
 
 // Raw SQL: a period comes with its permit's settings and the site's today in one read.
 const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at,
     rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, p.late_report_days, p.non_detect_policy, p.mass_loading_factor,
-    p.daily_max_applies_to_each_grab, p.snc_window, (now() AT TIME ZONE s.time_zone)::date::text AS today
+    p.daily_max_applies_to_each_grab, p.snc_window, p.monitoring_counts, rp.revision, (now() AT TIME ZONE s.time_zone)::date::text AS today
   FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
 const record = (row: PeriodRow): PeriodRecord => ({
   id: row.id,
@@ -50,6 +52,7 @@ const record = (row: PeriodRow): PeriodRecord => ({
   permitNumber: row.permit_number,
   lateReportDays: row.late_report_days,
   submittedOn: row.submitted_on,
+  revision: row.revision,
   today: row.today,
   settings: {
     kind: row.permit_kind,
@@ -57,6 +60,7 @@ const record = (row: PeriodRow): PeriodRecord => ({
     massLoadingFactor: Number(row.mass_loading_factor),
     dailyMaxAppliesToEachGrab: row.daily_max_applies_to_each_grab,
     sncWindow: row.snc_window,
+    monitoringCounts: row.monitoring_counts,
   },
 });
 

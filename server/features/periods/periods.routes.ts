@@ -1,7 +1,18 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import { IdParams } from '../../contracts/params.js';
-import { PeriodListQuery, PeriodSummary, SubmissionRequest } from '../../contracts/periods.js';
+import { authenticatedAt } from '../../auth/session.js';
+import {
+  AmendRequest,
+  PeriodListQuery,
+  PeriodSummary,
+  Revision,
+  RevisionParams,
+  SignOffChecklist,
+  SignRequest,
+  SubmissionRequest,
+} from '../../contracts/periods.js';
+import { z } from 'zod';
 import { endpoint } from '../../http/endpoint.js';
 import { PeriodsService } from './periods.service.js';
 
@@ -27,6 +38,38 @@ export function periodsRoutes(dataSource: DataSource): Router {
     ...endpoint(
       { action: 'periods.compile', params: IdParams, body: SubmissionRequest, response: PeriodSummary },
       ({ user, params, body }) => periods.recordSubmission(user, params.id, body),
+    ),
+  );
+
+  router.get(
+    '/:id/sign-off',
+    ...endpoint({ action: 'periods.sign', params: IdParams, response: SignOffChecklist }, ({ user, params, req }) =>
+      periods.signOffChecklist(user, params.id, authenticatedAt(req.session)),
+    ),
+  );
+  router.post(
+    '/:id/sign',
+    ...endpoint({ action: 'periods.sign', params: IdParams, body: SignRequest, response: PeriodSummary }, ({ user, params, body, req }) =>
+      periods.sign(user, params.id, body, authenticatedAt(req.session)),
+    ),
+  );
+  router.post(
+    '/:id/amendments',
+    ...endpoint(
+      { action: 'periods.amend', params: IdParams, body: AmendRequest, response: PeriodSummary, status: 201 },
+      ({ user, params, body }) => periods.amend(user, params.id, body),
+    ),
+  );
+  router.get(
+    '/:id/revisions',
+    ...endpoint({ action: 'periods.read', params: IdParams, response: z.object({ items: z.array(Revision) }) }, ({ user, params }) =>
+      periods.revisions(user, params.id),
+    ),
+  );
+  router.get(
+    '/:id/revisions/:revision',
+    ...endpoint({ action: 'periods.read', params: RevisionParams, response: PeriodSummary }, ({ user, params }) =>
+      periods.revision(user, params.id, params.revision),
     ),
   );
 

@@ -5,19 +5,16 @@ import type { CurrentUser } from '../../auth/current-user.js';
 import { daysLeft, manifestDeadlines } from '../../domain/manifest-deadlines.js';
 import { violationObligations } from '../../domain/notification-deadlines.js';
 import { findEquipment } from '../equipment/equipment.repository.js';
-import { oilBalanceInput } from '../oil-log/oil-on-hand.repository.js';
-import { oilOnHand } from '../../domain/oil-collection.js';
-import type { PeriodListQuery, PeriodSummary, SubmissionRequest } from '../../contracts/periods.js';
+import type { AmendRequest, PeriodListQuery, PeriodSummary, SignRequest, SubmissionRequest } from '../../contracts/periods.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { compilePeriod } from '../../domain/period/period-summary.js';
-import { reportTimeliness } from '../../domain/report-timeliness.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
-import { inParallel } from '../../db/in-parallel.js';
-import { invalid, notFound } from '../../errors/app-error.js';
+import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
-import { loadPeriodInput, type PeriodRecord } from './period-input.repository.js';
+import type { PeriodRecord } from './period-input.repository.js';
+import { PeriodSignOffService } from './sign-off.service.js';
+import { summarise } from './summarise.js';
 import {
   allPermitIds,
   certificateEntryTimes,
@@ -25,7 +22,6 @@ import {
   findPermitCalendar,
   insertMissingPeriods,
   listPeriods,
-  periodCounts,
   saveCompiledSummary,
   saveSubmissionDate,
   shipmentsAwaitingSignedCopy,
@@ -38,11 +34,6 @@ function stableId(...parts: string[]): string {
   const hex = createHash('sha256').update(parts.join('|')).digest('hex');
   return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-8${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
 }
-
-export const summaryCautions = [
-  'This summary is a record-keeping aid. The permit and the control authority decide how values are computed and reported: confirm with them before you report.',
-  'Daily discharges, averages and non-detects follow the definitions of 40 CFR 122.2 and the permit settings stated here; a permit may define them differently.',
-];
 
 /** Creates the permit's periods up to the one running today; idempotent. */
 export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
@@ -60,44 +51,6 @@ export async function ensureAllPeriods(db: Db): Promise<void> {
   for (const permitId of await allPermitIds(db)) await ensurePeriods(db, permitId);
 }
 
-/** Oil collected and shipped in the period and on hand at its end, follow-ups open at the site, and results the lab checks flagged. */
-async function periodTotals(db: Db, period: PeriodRecord) {
-  const totals = await periodCounts(db, period);
-  const balance = await oilBalanceInput(db, period.siteId, period.endsOn);
-  return {
-    oil: {
-      collectedLitres: totals.collectedLitres,
-      shippedLitres: totals.shippedLitres,
-      onHandAtEndLitres: balance ? oilOnHand(balance).litres : null,
-    },
-    openFollowUps: totals.openFollowUps,
-    labFlagCount: totals.labFlagCount,
-  };
-}
-
-/** The summary of one period, compiled now from the records (nothing is written). */
-export async function summarise(db: Db, period: PeriodRecord, now = new Date()): Promise<PeriodSummary> {
-  const [input, totals] = await inParallel(
-    db,
-    () => loadPeriodInput(db, period),
-    () => periodTotals(db, period),
-  );
-  const core = compilePeriod(input);
-  const timeliness = reportTimeliness(period.dueOn, period.submittedOn, period.today, period.lateReportDays, period.permitKind);
-  return {
-    periodId: period.id,
-    permitId: period.permitId,
-    siteId: period.siteId,
-    status: period.status,
-    period: { start: period.startsOn, end: period.endsOn, due: period.dueOn },
-    compiledAt: now.toISOString(),
-    ...core,
-    ...totals,
-    reportTimeliness: timeliness,
-    cautions: summaryCautions,
-  };
-}
-
 /**
  * Saves the summary and opens the follow-ups the rules require. Opening is idempotent: each
  * follow-up is keyed by its kind and source, so recompiling opens nothing twice.
@@ -110,6 +63,9 @@ export async function compileAndSave(dataSource: DataSource, user: CurrentUser, 
 export async function compileWithin(manager: EntityManager, user: Actor, periodId: string): Promise<PeriodSummary> {
   const period = await findPeriod(manager, periodId);
   if (!period) throw notFound('Period');
+  if (period.status === 'signed') {
+    throw conflict(`This period is signed (revision ${period.revision}): its figures are the signed snapshot. Open an amendment to compile it again.`);
+  }
   const summary = await summarise(manager, period);
   // The user became aware of a result when its certificate was entered: one read for all exceedances.
   const certificateIds = [
@@ -206,9 +162,13 @@ const stepTitles: Record<string, string> = {
   'copy-with-note-of-non-receipt': 'Send a copy with a note that the signed copy was not received',
 };
 
-/** Reporting periods of the permits: listed, summarised on demand, compiled, their submission recorded. */
+/** Reporting periods of the permits: listed, summarised, compiled, signed and amended, their submission recorded. */
 export class PeriodsService {
-  constructor(private readonly dataSource: DataSource) {}
+  private readonly signOff: PeriodSignOffService;
+
+  constructor(private readonly dataSource: DataSource) {
+    this.signOff = new PeriodSignOffService(dataSource);
+  }
 
   async list(user: CurrentUser, { siteId, permitId }: PeriodListQuery) {
     if (siteId) assertSiteAllowed(user, siteId);
@@ -216,12 +176,33 @@ export class PeriodsService {
   }
 
   async summary(user: CurrentUser, id: string): Promise<PeriodSummary> {
-    return summarise(this.dataSource, await this.visiblePeriod(user, id));
+    return this.signOff.view(await this.visiblePeriod(user, id));
   }
 
   async compile(user: CurrentUser, id: string): Promise<PeriodSummary> {
     const period = await this.visiblePeriod(user, id);
-    return compileAndSave(this.dataSource, user, period.id);
+    const compiled = await compileAndSave(this.dataSource, user, period.id);
+    return { ...(await this.signOff.view({ ...period, status: compiled.status as PeriodRecord['status'] })), compiledAt: compiled.compiledAt };
+  }
+
+  async signOffChecklist(user: CurrentUser, id: string, authenticatedAt: number) {
+    return this.signOff.checklist(user, await this.visiblePeriod(user, id), authenticatedAt);
+  }
+
+  async sign(user: CurrentUser, id: string, request: SignRequest, authenticatedAt: number): Promise<PeriodSummary> {
+    return this.signOff.sign(user, await this.visiblePeriod(user, id), request, authenticatedAt);
+  }
+
+  async amend(user: CurrentUser, id: string, request: AmendRequest): Promise<PeriodSummary> {
+    return this.signOff.amend(user, await this.visiblePeriod(user, id), request);
+  }
+
+  async revisions(user: CurrentUser, id: string) {
+    return { items: await this.signOff.revisions(await this.visiblePeriod(user, id)) };
+  }
+
+  async revision(user: CurrentUser, id: string, revision: number): Promise<PeriodSummary> {
+    return this.signOff.revision(await this.visiblePeriod(user, id), revision);
   }
 
   /** Records when the periodic report went to the authority (signing and packs come later). */
@@ -240,7 +221,7 @@ export class PeriodsService {
         after: request,
       });
     });
-    return summarise(this.dataSource, (await findPeriod(this.dataSource, period.id))!);
+    return this.signOff.view((await findPeriod(this.dataSource, period.id))!);
   }
 
   private async visiblePeriod(user: CurrentUser, id: string): Promise<PeriodRecord> {

@@ -40,4 +40,8 @@ export class ReportingPeriod {
 
   @Column({ type: 'date', name: 'submitted_on', nullable: true })
   submittedOn: string | null;
+
+  /** How many times the period has been signed: 0 until its first signature. */
+  @Column({ type: 'smallint', default: 0 })
+  revision: number;
 }

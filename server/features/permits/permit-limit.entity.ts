@@ -1,4 +1,4 @@
-import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { Check, Column, CreateDateColumn, Entity, Exclusion, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { Limit } from '../../contracts/setup.js';
 import { numeric } from '../../db/numeric-transformer.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
@@ -19,9 +19,14 @@ import { Permit } from './permit.entity.js';
   `((sample_type)::text = ANY ((ARRAY['grab'::character varying, 'composite'::character varying])::text[]))`,
 )
 @Check('permit_limit_reported_decimals_check', `((reported_decimals >= 0) AND (reported_decimals <= 6))`)
+@Check('permit_limit_applies_check', `((applies_to IS NULL) OR (applies_to >= applies_from))`)
 @Index('IDX_permit_limit_point', ['dischargePointId', 'parameterId'])
-// public.permit_limit USING btree (permit_id, discharge_point_id, parameter_id, statistic, (((unit)::text = ANY ((ARRAY['lb/day'::character varying, 'kg/day'::character varying])::text[]))))
-@Index('UQ_permit_limit_basis', { synchronize: false })
+@Index('IDX_permit_limit_series', ['seriesId'])
+// Versions of one basis (point, parameter, statistic, concentration or mass) never overlap in time.
+@Exclusion(
+  'EX_permit_limit_versions',
+  `USING gist (permit_id WITH =, discharge_point_id WITH =, parameter_id WITH =, statistic WITH =, ((unit)::text = ANY ((ARRAY['lb/day'::character varying, 'kg/day'::character varying])::text[])) WITH =, daterange(applies_from, applies_to, '[]') WITH &&)`,
+)
 @Entity('permit_limit')
 export class PermitLimit {
   @PrimaryGeneratedColumn('uuid')
@@ -74,4 +79,16 @@ export class PermitLimit {
 
   @Column({ type: 'smallint', name: 'reported_decimals', nullable: true })
   reportedDecimals: number | null;
+
+  /** The first day this version applies. */
+  @Column({ type: 'date', name: 'applies_from' })
+  appliesFrom: string;
+
+  /** The last day it applies; null while it is in force. */
+  @Column({ type: 'date', name: 'applies_to', nullable: true })
+  appliesTo: string | null;
+
+  /** The same for every version of one limit: the id of its first version. */
+  @Column({ type: 'uuid', name: 'series_id' })
+  seriesId: string;
 }

@@ -19,6 +19,10 @@ import { Site } from '../../kernel/sites/site.entity.js';
   `((snc_window)::text = ANY ((ARRAY['calendar-halves'::character varying, 'rolling'::character varying])::text[]))`,
 )
 @Check('permit_late_report_days_check', `((late_report_days >= 1) AND (late_report_days <= 365))`)
+@Check(
+  'permit_monitoring_counts_check',
+  `((monitoring_counts)::text = ANY ((ARRAY['sampling-days'::character varying, 'samples'::character varying])::text[]))`,
+)
 @Check('permit_check', `((effective_to IS NULL) OR (effective_to >= effective_from))`)
 @Unique('permit_site_id_number_key', ['siteId', 'number'])
 @Entity('permit')
@@ -71,6 +75,9 @@ export class Permit {
 
   @Column({ type: 'smallint', name: 'late_report_days', default: 45 })
   lateReportDays: number;
+
+  @Column({ type: 'varchar', name: 'monitoring_counts', length: 14, default: 'sampling-days' })
+  monitoringCounts: PermitView['monitoringCounts'];
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;

@@ -29,6 +29,7 @@ export const permitTarget = {
     massLoadingFactor: row.massLoadingFactor as PermitView['massLoadingFactor'],
     sncWindow: row.sncWindow,
     lateReportDays: row.lateReportDays,
+    monitoringCounts: row.monitoringCounts,
   }),
   siteIdOf: (row: Permit) => row.siteId,
 } satisfies Target<Permit, unknown>;

@@ -47,4 +47,9 @@ export class TrailEntry {
 
   @Column({ type: 'char', length: 64, insert: false, update: false })
   hash: string;
+
+  /** The period amendment the change was made under (set by the database from the period lock). */
+  @Index('IDX_trail_entry_amendment', { where: 'amendment_id IS NOT NULL' })
+  @Column({ type: 'uuid', name: 'amendment_id', nullable: true })
+  amendmentId: string | null;
 }
