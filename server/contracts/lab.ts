@@ -60,7 +60,9 @@ export const CertificateFields = z.object({
   samples: z.array(SampleInput).min(1, 'A certificate needs at least one sample').max(200),
 });
 export const CreateLabCertificateRequest = CertificateFields;
-export const UpdateLabCertificateRequest = CertificateFields.omit({ siteId: true });
+/** A correction after the first 24 hours says why; the reason is kept in the trail beside before and after. */
+export const CorrectionReason = z.string().trim().max(500).nullable().default(null);
+export const UpdateLabCertificateRequest = CertificateFields.omit({ siteId: true }).extend({ reason: CorrectionReason });
 export type CreateLabCertificateRequest = z.infer<typeof CreateLabCertificateRequest>;
 export type UpdateLabCertificateRequest = z.infer<typeof UpdateLabCertificateRequest>;
 
@@ -141,6 +143,8 @@ export interface CertificateSummary {
 
 export interface CertificateDetail extends CertificateSummary {
   labAccreditationNumber: string;
+  /** When it was entered: corrections after the first 24 hours need a reason. */
+  enteredAt: string;
   timeZone: string;
   qcBatches: QcBatchView[];
   samples: SampleView[];

@@ -94,9 +94,22 @@ export const LimitFields = z.object({
   /** Decimal places the permit asks figures to be reported to; null: the method's or the usual precision. */
   reportedDecimals: z.number().int().min(0, 'From 0 to 6 decimal places').max(6, 'From 0 to 6 decimal places').nullable().default(null),
 });
-export const CreateLimitRequest = LimitFields;
-export const UpdateLimitRequest = updateOf(LimitFields);
-export type Limit = z.infer<typeof LimitFields> & { id: string; permitId: string };
+/** `appliesFrom`: the first day the limit (or its new version) applies; by default the permit's start for a new limit, the running period's start for a change. */
+export const CreateLimitRequest = LimitFields.extend({ appliesFrom: isoDate.optional() });
+export const UpdateLimitRequest = updateOf(LimitFields).extend({ appliesFrom: isoDate.optional() });
+/** Ending a limit: the last day it applies. Without it, only a limit of a permit that judged nothing yet is deleted. */
+export const EndLimitQuery = z.object({ endsOn: isoDate.optional() });
+export type EndLimitQuery = z.output<typeof EndLimitQuery>;
+export type Limit = z.infer<typeof LimitFields> & {
+  id: string;
+  permitId: string;
+  /** The first day this version applies. */
+  appliesFrom: string;
+  /** The last day it applies; null while in force. */
+  appliesTo: string | null;
+  /** Shared by every version of one limit. */
+  seriesId: string;
+};
 
 export type CreateSiteRequest = z.output<typeof CreateSiteRequest>;
 export type UpdateSiteRequest = z.output<typeof UpdateSiteRequest>;

@@ -23,7 +23,13 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   } else if (error?.code === '23P01') {
     // An exclusion constraint: two versions of one limit would apply on the same day.
     status = 409;
-    body = { error: { code: 'conflict', message: 'Another version of this limit already applies on those days', fields: { appliesFrom: 'Overlaps another version' } } };
+    body = {
+      error: {
+        code: 'conflict',
+        message: 'Another version of this limit already applies on those days',
+        fields: { appliesFrom: 'Overlaps another version' },
+      },
+    };
   } else if (error?.code === '23505') {
     // A unique constraint no service named a field for (two requests racing for one number):
     // the transaction rolled back, so nothing was written.

@@ -107,18 +107,23 @@ describe('lab certificates', () => {
     const dailyMax = limits.body.items.find(
       (l: { statistic: string; parameterId: string }) => l.statistic === 'daily-maximum' && l.parameterId === ids.hem,
     );
-    await request(t.app)
+    // A new version from the sample's day judges it; the flag follows the version in force that day.
+    const version = await request(t.app)
       .patch(`/api/permits/${ids.northPermit}/limits/${dailyMax.id}`)
       .set('cookie', coordinator)
-      .send({ value: 80 })
+      .send({ value: 80, appliesFrom: '2026-03-02' })
       .expect(200);
     const after = await request(t.app).get(`/api/lab-certificates/${created.body.id}`).set('cookie', coordinator).expect(200);
     expect(after.body.samples[0].results[0].flags.map((f: { code: string }) => f.code)).toContain('over-limit');
-    await request(t.app)
-      .patch(`/api/permits/${ids.northPermit}/limits/${dailyMax.id}`)
+    // Corrected from its own first day, the version changes in place.
+    const corrected = await request(t.app)
+      .patch(`/api/permits/${ids.northPermit}/limits/${version.body.id}`)
       .set('cookie', coordinator)
-      .send({ value: 100 })
+      .send({ value: 100, appliesFrom: '2026-03-02' })
       .expect(200);
+    expect(corrected.body.id).toBe(version.body.id);
+    const back = await request(t.app).get(`/api/lab-certificates/${created.body.id}`).set('cookie', coordinator).expect(200);
+    expect(back.body.samples[0].results[0].flags.map((f: { code: string }) => f.code)).not.toContain('over-limit');
   });
 
   describe('refused uploads store nothing', () => {

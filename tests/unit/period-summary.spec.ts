@@ -75,7 +75,7 @@ describe('daily discharges and statistics (40 CFR 122.2)', () => {
           massLoadingFactor: 8.34,
           dailyMaxAppliesToEachGrab: true,
           sncWindow: 'calendar-halves',
-    monitoringCounts: 'samples',
+          monitoringCounts: 'samples',
         },
       }),
     );
@@ -141,7 +141,7 @@ describe('non-detects', () => {
           massLoadingFactor: 8.34,
           dailyMaxAppliesToEachGrab: false,
           sncWindow: 'calendar-halves',
-    monitoringCounts: 'samples',
+          monitoringCounts: 'samples',
         },
       }),
     );
@@ -240,7 +240,7 @@ describe('mass limits (40 CFR 122.2 "daily discharge": the total mass over the d
           massLoadingFactor: 8.3454,
           dailyMaxAppliesToEachGrab: false,
           sncWindow: 'calendar-halves',
-    monitoringCounts: 'samples',
+          monitoringCounts: 'samples',
         },
       }),
     );
@@ -371,7 +371,7 @@ describe('significant noncompliance (40 CFR 403.8(f)(2)(viii))', () => {
           massLoadingFactor: 8.34,
           dailyMaxAppliesToEachGrab: false,
           sncWindow: 'calendar-halves',
-    monitoringCounts: 'samples',
+          monitoringCounts: 'samples',
         },
       }),
     );

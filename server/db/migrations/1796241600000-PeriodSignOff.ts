@@ -41,7 +41,9 @@ export class PeriodSignOff1796241600000 implements MigrationInterface {
         NEW.series_id := coalesce(NEW.series_id, NEW.id);
         RETURN NEW;
       END $$`);
-    await q.query(`CREATE TRIGGER permit_limit_defaults BEFORE INSERT ON permit_limit FOR EACH ROW EXECUTE FUNCTION permit_limit_defaults()`);
+    await q.query(
+      `CREATE TRIGGER permit_limit_defaults BEFORE INSERT ON permit_limit FOR EACH ROW EXECUTE FUNCTION permit_limit_defaults()`,
+    );
 
     // Monitoring frequencies count sampling days unless the permit says every sample counts.
     await q.query(`ALTER TABLE permit ADD COLUMN monitoring_counts varchar(14) NOT NULL DEFAULT 'sampling-days'
@@ -105,15 +107,17 @@ export class PeriodSignOff1796241600000 implements MigrationInterface {
     await q.query(`CREATE TRIGGER reporting_period_keeps_signature BEFORE UPDATE OR DELETE ON reporting_period
       FOR EACH ROW EXECUTE FUNCTION reporting_period_keeps_signature()`);
 
-    // The lock. One question for every table: does a signed period of this site hold this day?
-    await q.query(`CREATE FUNCTION period_lock_check(p_site uuid, p_day date) RETURNS void
+    // The lock. One question for every table: does a signed period of a permit with limits at this
+    // discharge point hold this day?
+    await q.query(`CREATE FUNCTION period_lock_check(p_point uuid, p_day date) RETURNS void
       LANGUAGE plpgsql SECURITY DEFINER SET search_path = public AS $$
       DECLARE locked record; amendment uuid;
       BEGIN
-        IF p_site IS NULL OR p_day IS NULL THEN RETURN; END IF;
+        IF p_point IS NULL OR p_day IS NULL THEN RETURN; END IF;
         SELECT rp.starts_on, rp.ends_on, rp.revision, p.number INTO locked
           FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id
-         WHERE p.site_id = p_site AND rp.status = 'signed' AND p_day BETWEEN rp.starts_on AND rp.ends_on
+         WHERE rp.status = 'signed' AND p_day BETWEEN rp.starts_on AND rp.ends_on
+           AND EXISTS (SELECT 1 FROM permit_limit l WHERE l.permit_id = rp.permit_id AND l.discharge_point_id = p_point)
          LIMIT 1;
         IF FOUND THEN
           RAISE EXCEPTION 'The period % – % of permit % is signed (revision %) and holds this record',
@@ -121,9 +125,9 @@ export class PeriodSignOff1796241600000 implements MigrationInterface {
             USING ERRCODE = 'DL409', HINT = 'Open an amendment on that period (with a reason), make the change, and sign it again';
         END IF;
         SELECT a.id INTO amendment
-          FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id
-          JOIN period_amendment a ON a.period_id = rp.id AND a.amends_revision = rp.revision
-         WHERE p.site_id = p_site AND rp.status = 'amended' AND p_day BETWEEN rp.starts_on AND rp.ends_on
+          FROM reporting_period rp JOIN period_amendment a ON a.period_id = rp.id AND a.amends_revision = rp.revision
+         WHERE rp.status = 'amended' AND p_day BETWEEN rp.starts_on AND rp.ends_on
+           AND EXISTS (SELECT 1 FROM permit_limit l WHERE l.permit_id = rp.permit_id AND l.discharge_point_id = p_point)
          LIMIT 1;
         IF FOUND THEN
           -- The trail entry of this change names the amendment (trail_entry_chain reads it).
@@ -131,11 +135,10 @@ export class PeriodSignOff1796241600000 implements MigrationInterface {
         END IF;
       END $$`);
     await q.query(`CREATE FUNCTION period_lock_of_sample(p_sample uuid) RETURNS void LANGUAGE sql SECURITY DEFINER SET search_path = public AS $$
-        SELECT period_lock_check(d.site_id, s.collected_on) FROM lab_sample s JOIN discharge_point d ON d.id = s.discharge_point_id WHERE s.id = p_sample
+        SELECT period_lock_check(s.discharge_point_id, s.collected_on) FROM lab_sample s WHERE s.id = p_sample
       $$`);
     await q.query(`CREATE FUNCTION period_lock_of_certificate(p_certificate uuid) RETURNS void LANGUAGE sql SECURITY DEFINER SET search_path = public AS $$
-        SELECT period_lock_check(d.site_id, s.collected_on) FROM lab_sample s JOIN discharge_point d ON d.id = s.discharge_point_id
-         WHERE s.certificate_id = p_certificate
+        SELECT period_lock_check(s.discharge_point_id, s.collected_on) FROM lab_sample s WHERE s.certificate_id = p_certificate
       $$`);
     await q.query(`CREATE FUNCTION period_lock() RETURNS trigger LANGUAGE plpgsql SECURITY DEFINER SET search_path = public AS $$
       DECLARE r record;
@@ -143,9 +146,9 @@ export class PeriodSignOff1796241600000 implements MigrationInterface {
         FOREACH r IN ARRAY (CASE TG_OP WHEN 'INSERT' THEN ARRAY[NEW] WHEN 'DELETE' THEN ARRAY[OLD] ELSE ARRAY[OLD, NEW] END) LOOP
           CASE TG_TABLE_NAME
             WHEN 'lab_sample' THEN
-              PERFORM period_lock_check((SELECT site_id FROM discharge_point WHERE id = r.discharge_point_id), r.collected_on);
+              PERFORM period_lock_check(r.discharge_point_id, r.collected_on);
             WHEN 'flow_reading' THEN
-              PERFORM period_lock_check((SELECT site_id FROM discharge_point WHERE id = r.discharge_point_id), r.day);
+              PERFORM period_lock_check(r.discharge_point_id, r.day);
             WHEN 'lab_result' THEN
               PERFORM period_lock_of_sample(r.sample_id);
             WHEN 'lab_certificate' THEN
@@ -274,6 +277,8 @@ export class PeriodSignOff1796241600000 implements MigrationInterface {
     await q.query(`ALTER TABLE permit_limit DROP CONSTRAINT "EX_permit_limit_versions"`);
     await q.query(`CREATE UNIQUE INDEX "UQ_permit_limit_basis" ON permit_limit
       (permit_id, discharge_point_id, parameter_id, statistic, ((unit)::text = ANY ((ARRAY['lb/day'::character varying, 'kg/day'::character varying])::text[])))`);
-    await q.query(`ALTER TABLE permit_limit DROP CONSTRAINT permit_limit_applies_check, DROP COLUMN applies_from, DROP COLUMN applies_to, DROP COLUMN series_id`);
+    await q.query(
+      `ALTER TABLE permit_limit DROP CONSTRAINT permit_limit_applies_check, DROP COLUMN applies_from, DROP COLUMN applies_to, DROP COLUMN series_id`,
+    );
   }
 }

@@ -9,7 +9,8 @@ import type {
 } from '../../contracts/lab.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { conflict, notFound } from '../../errors/app-error.js';
+import { OIL_LOG_AUTHOR_WINDOW_MS as CORRECTION_WINDOW_MS } from '../../contracts/permissions.js';
+import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { checkUpload, claimStoredFiles, sendStoredFile, storeFile, type Upload } from '../../kernel/files/stored-files.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { writeCertificateContent } from './certificate-content.js';
@@ -113,6 +114,9 @@ export class LabCertificatesService {
   async update(user: CurrentUser, id: string, request: UpdateLabCertificateRequest): Promise<CertificateDetail> {
     return this.dataSource.transaction(async (manager) => {
       const before = await this.visible(manager, user, id);
+      if (!request.reason && Date.now() - new Date(before.enteredAt).getTime() > CORRECTION_WINDOW_MS) {
+        throw invalid({ reason: 'Entered more than 24 hours ago: say why it is corrected' });
+      }
       if (await reportNumberTaken(manager, { ...request, siteId: before.siteId }, id)) throw duplicateReport();
       await updateCertificateRecord(manager, id, {
         labName: request.labName,
@@ -123,7 +127,14 @@ export class LabCertificatesService {
       await writeCertificateContent(manager, id, { id: before.siteId, timeZone: before.timeZone }, request);
       await computeCertificateFlags(manager, id);
       const after = (await loadCertificate(manager, id))!;
-      await recordTrail(manager, user, { action: 'update', entity: 'lab-certificate', entityId: id, siteId: before.siteId, before, after });
+      await recordTrail(manager, user, {
+        action: 'update',
+        entity: 'lab-certificate',
+        entityId: id,
+        siteId: before.siteId,
+        before,
+        after: { ...after, reason: request.reason },
+      });
       return after;
     });
   }

@@ -66,7 +66,10 @@ export async function computeCertificateFlags(
     });
     qcFlags.set(batch.id, flags);
     // Only what changed is written: a recheck leaves the rows of a signed period untouched (and allowed).
-    await manager.query('UPDATE qc_batch SET flags = $2 WHERE id = $1 AND flags IS DISTINCT FROM $2::jsonb', [batch.id, JSON.stringify(flags)]);
+    await manager.query('UPDATE qc_batch SET flags = $2 WHERE id = $1 AND flags IS DISTINCT FROM $2::jsonb', [
+      batch.id,
+      JSON.stringify(flags),
+    ]);
   }
 
   const samples = await manager.query('SELECT * FROM lab_sample WHERE certificate_id = $1', [certificateId]);

@@ -138,7 +138,7 @@ export async function saveCompiledSummary(manager: EntityManager, periodId: stri
   await manager
     .createQueryBuilder()
     .update(ReportingPeriod)
-    .set({ status: () => `CASE WHEN status = 'open' THEN 'compiled' ELSE status END`, compiledAt: () => 'now()', summary })
+    .set({ status: () => `CASE WHEN status = 'open' THEN 'compiled' ELSE status END`, compiledAt: new Date(summary.compiledAt), summary })
     .where('id = :periodId', { periodId })
     .execute();
   return (await manager.findOneOrFail(ReportingPeriod, { where: { id: periodId }, select: { status: true } })).status;

@@ -64,7 +64,9 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
   const period = await findPeriod(manager, periodId);
   if (!period) throw notFound('Period');
   if (period.status === 'signed') {
-    throw conflict(`This period is signed (revision ${period.revision}): its figures are the signed snapshot. Open an amendment to compile it again.`);
+    throw conflict(
+      `This period is signed (revision ${period.revision}): its figures are the signed snapshot. Open an amendment to compile it again.`,
+    );
   }
   const summary = await summarise(manager, period);
   // The user became aware of a result when its certificate was entered: one read for all exceedances.
@@ -182,7 +184,10 @@ export class PeriodsService {
   async compile(user: CurrentUser, id: string): Promise<PeriodSummary> {
     const period = await this.visiblePeriod(user, id);
     const compiled = await compileAndSave(this.dataSource, user, period.id);
-    return { ...(await this.signOff.view({ ...period, status: compiled.status as PeriodRecord['status'] })), compiledAt: compiled.compiledAt };
+    return {
+      ...(await this.signOff.view({ ...period, status: compiled.status as PeriodRecord['status'] })),
+      compiledAt: compiled.compiledAt,
+    };
   }
 
   async signOffChecklist(user: CurrentUser, id: string, authenticatedAt: number) {

@@ -12,7 +12,10 @@ type Db = DataSource | EntityManager;
 
 /** The first day a period's summary reads: the start of its earliest six-month window. */
 const firstDayRead = (period: PeriodRecord) =>
-  [period.startsOn, ...sncWindows({ start: period.startsOn, end: period.endsOn }, period.settings.sncWindow).map((w) => w.start)].sort()[0]!;
+  [
+    period.startsOn,
+    ...sncWindows({ start: period.startsOn, end: period.endsOn }, period.settings.sncWindow).map((w) => w.start),
+  ].sort()[0]!;
 
 /**
  * What signing must not be blind to: results of the period carrying a lab finding, missed
@@ -43,13 +46,11 @@ export async function signOffItems(db: Db, period: PeriodRecord, summary: Pick<P
       text: `${f.parameter} at ${f.point}, ${f.day}: ${f.codes.join(', ')}`,
     })),
     ...summary.rows.flatMap((row) =>
-      row.missedMonitoring.map(
-        (missed): SignOffItem => ({
-          kind: 'missed-sample',
-          id: `${row.limitId}|${missed.unit}`,
-          text: `${row.parameter} at ${row.pointCode}, ${missed.unit}: ${missed.taken} of ${missed.required} samples`,
-        }),
-      ),
+      row.missedMonitoring.map((missed): SignOffItem => ({
+        kind: 'missed-sample',
+        id: `${row.limitId}|${missed.unit}`,
+        text: `${row.parameter} at ${row.pointCode}, ${missed.unit}: ${missed.taken} of ${missed.required} samples`,
+      })),
     ),
     ...followUps.map((f): SignOffItem => ({ kind: 'open-follow-up', id: f.id, text: f.title })),
   ];

@@ -83,7 +83,14 @@ export class PeriodSignOffService {
     // When the report went to the authority is recorded after signing: the one live part.
     const timeliness = reportTimeliness(period.dueOn, period.submittedOn, period.today, period.lateReportDays, period.permitKind);
     if (period.status === 'signed' && last) {
-      return { ...last.summary, status: 'signed', revision: last.revision, signature: signatureView(last), amendment: null, reportTimeliness: timeliness };
+      return {
+        ...last.summary,
+        status: 'signed',
+        revision: last.revision,
+        signature: signatureView(last),
+        amendment: null,
+        reportTimeliness: timeliness,
+      };
     }
     const draft = await summarise(this.dataSource, period);
     const amendment = period.status === 'amended' ? await openAmendmentOf(this.dataSource, period.id, period.revision) : null;
@@ -104,7 +111,7 @@ export class PeriodSignOffService {
       statementSection: `${statement.section} (required by ${statement.requiredBy})`,
       statement: statement.text,
       items,
-      compiledAt: stored.compiledAt?.toISOString() ?? null,
+      compiledAt: stored.summary?.compiledAt ?? null,
       recentSignInRequired: Date.now() - authenticatedAt > RECENT_AUTHENTICATION_MS,
     };
   }
@@ -117,12 +124,13 @@ export class PeriodSignOffService {
     await this.dataSource.transaction(async (manager) => {
       const row = await lockPeriodRow(manager, period.id);
       if (row.status === 'signed') throw conflict('This period is already signed');
-      if (!row.summary || !row.compiledAt || row.compiledAt.getTime() !== new Date(request.compiledAt).getTime()) {
+      const reviewed = row.summary as PeriodSummary | null;
+      if (!reviewed || new Date(reviewed.compiledAt).getTime() !== new Date(request.compiledAt).getTime()) {
         throw conflict('The period was compiled again since the summary you reviewed: review the new compile, then sign', {
           compiledAt: 'Not the latest compile',
         });
       }
-      const shown = row.summary as PeriodSummary;
+      const shown = reviewed;
       const now = await summarise(manager, { ...period, status: row.status });
       if (figuresOf(now) !== figuresOf(shown)) {
         throw conflict('The records changed since the summary was compiled: compile again, review, then sign', {
@@ -158,7 +166,13 @@ export class PeriodSignOffService {
         entityId: period.id,
         siteId: period.siteId,
         before: { status: row.status, revision: row.revision },
-        after: { status: 'signed', revision: signature.revision, sha256: sha, signerName: request.signerName, signerTitle: request.signerTitle },
+        after: {
+          status: 'signed',
+          revision: signature.revision,
+          sha256: sha,
+          signerName: request.signerName,
+          signerTitle: request.signerTitle,
+        },
       });
     });
     return this.view((await findPeriod(this.dataSource, period.id))!);
@@ -213,7 +227,13 @@ function notSignable(period: PeriodRecord): string | null {
   return null;
 }
 
-function amendmentView(amendment: { id: string; amendsRevision: number; reason: string; openedByName: string; openedAt: Date }): OpenAmendment {
+function amendmentView(amendment: {
+  id: string;
+  amendsRevision: number;
+  reason: string;
+  openedByName: string;
+  openedAt: Date;
+}): OpenAmendment {
   return {
     id: amendment.id,
     amendsRevision: amendment.amendsRevision,

@@ -55,4 +55,3 @@ export async function summarise(db: Db, period: PeriodRecord, now = new Date()):
     amendment: null,
   };
 }
-

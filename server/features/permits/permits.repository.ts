@@ -8,7 +8,7 @@ import { PermitLimit } from './permit-limit.entity.js';
 import { Permit } from './permit.entity.js';
 
 type Db = DataSource | EntityManager;
-export type LimitView = Limit & { id: string; permitId: string };
+export type LimitView = Limit;
 
 export const permitTarget = {
   entityClass: Permit,
@@ -51,6 +51,9 @@ export const limitTarget = (siteId: string) =>
       frequencyPer: row.frequencyPer,
       sampleType: row.sampleType,
       reportedDecimals: row.reportedDecimals,
+      appliesFrom: row.appliesFrom,
+      appliesTo: row.appliesTo,
+      seriesId: row.seriesId,
     }),
     siteIdOf: () => siteId,
   }) satisfies Target<PermitLimit, LimitView>;
@@ -76,6 +79,7 @@ export async function findLimits(db: Db, permitId: string, siteId: string): Prom
     .orderBy('point.code')
     .addOrderBy('limit.parameterId')
     .addOrderBy('limit.statistic')
+    .addOrderBy('limit.appliesFrom')
     .getMany();
   return rows.map(limitTarget(siteId).view);
 }
@@ -102,3 +106,17 @@ export const countLimits = (manager: EntityManager, permitId: string) => manager
 
 export const findPoint = (manager: EntityManager, id: string) => manager.findOneBy(DischargePoint, { id });
 export const findParameter = (manager: EntityManager, id: string) => manager.findOneBy(Parameter, { id });
+
+/** The first day of the permit's period running today, or the permit's start before any: where a change applies from by default. */
+export async function runningPeriodStart(db: Db, permit: Permit): Promise<string> {
+  // Raw SQL: the site's today is worked out in its own time zone.
+  const [row]: Array<{ starts_on: string }> = await db.query(
+    `SELECT rp.starts_on::text FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id
+      WHERE rp.permit_id = $1 AND (now() AT TIME ZONE s.time_zone)::date BETWEEN rp.starts_on AND rp.ends_on`,
+    [permit.id],
+  );
+  return row?.starts_on ?? permit.effectiveFrom;
+}
+
+export const findLimitForUpdate = (manager: EntityManager, id: string) =>
+  manager.getRepository(PermitLimit).findOne({ where: { id }, lock: { mode: 'pessimistic_write' } });

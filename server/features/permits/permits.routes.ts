@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
 import { IdParams, LimitParams, OptionalSiteQuery } from '../../contracts/params.js';
-import { CreateLimitRequest, CreatePermitRequest, UpdateLimitRequest, UpdatePermitRequest } from '../../contracts/setup.js';
+import { CreateLimitRequest, CreatePermitRequest, EndLimitQuery, UpdateLimitRequest, UpdatePermitRequest } from '../../contracts/setup.js';
 import { endpoint } from '../../http/endpoint.js';
 import { PermitsService } from './permits.service.js';
 
@@ -46,8 +46,8 @@ export function permitsRoutes(dataSource: DataSource): Router {
   );
   router.delete(
     '/:id/limits/:limitId',
-    ...endpoint({ action: 'setup.manage', params: LimitParams }, ({ user, params }) =>
-      permits.removeLimit(user, params.id, params.limitId),
+    ...endpoint({ action: 'setup.manage', params: LimitParams, query: EndLimitQuery }, ({ user, params, query }) =>
+      permits.removeLimit(user, params.id, params.limitId, query),
     ),
   );
 

@@ -1,5 +1,12 @@
 import type { DataSource, EntityManager } from 'typeorm';
-import type { CreateLimitRequest, CreatePermitRequest, UpdateLimitRequest, UpdatePermitRequest } from '../../contracts/setup.js';
+import { DateTime } from 'luxon';
+import type {
+  CreateLimitRequest,
+  CreatePermitRequest,
+  EndLimitQuery,
+  UpdateLimitRequest,
+  UpdatePermitRequest,
+} from '../../contracts/setup.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { uniquely } from '../../db/uniquely.js';
@@ -7,12 +14,15 @@ import type { Permit } from './permit.entity.js';
 import { convert, isMassRate, units } from '../../domain/units.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
+import { recordTrail } from '../../kernel/trail/trail.js';
+import { PermitLimit } from './permit-limit.entity.js';
 import { recheckResultsAtPoint } from '../lab/lab-flags.service.js';
 import { ensurePeriods } from '../periods/periods.service.js';
 import {
   countKeptPeriods,
   countLimits,
   deleteUncompiledPeriods,
+  findLimitForUpdate,
   findLimits,
   findParameter,
   findPermit,
@@ -20,6 +30,7 @@ import {
   findPoint,
   limitTarget,
   permitTarget,
+  runningPeriodStart,
 } from './permits.repository.js';
 
 const duplicateLimit = 'This permit already has this statistic for this point and parameter';
@@ -107,32 +118,91 @@ export class PermitsService {
     );
   }
 
+  /**
+   * A change to a limit is its next version, applying from the day given (by default the start of
+   * the running period); the version before ends the day before. A change from the version's
+   * own first day corrects that version. PostgreSQL refuses either where a signed period would
+   * be judged differently (409 naming it).
+   */
   async updateLimit(user: CurrentUser, id: string, limitId: string, request: UpdateLimitRequest) {
     const permit = await this.visiblePermit(user, id);
     const target = limitTarget(permit.siteId);
+    const { appliesFrom: requestedFrom, ...changes } = request;
+    const appliesFrom = requestedFrom ?? (await runningPeriodStart(this.dataSource, permit));
     const updated = await uniquely(
       () =>
-        updateTraced(this.dataSource, user, target, limitId, request, async (manager, before) => {
-          if (before.permitId !== permit.id) throw notFound('Limit');
-          await checkLimit(manager, permit, { ...target.view(before), ...request });
+        this.dataSource.transaction(async (manager) => {
+          const before = await findLimitForUpdate(manager, limitId);
+          if (!before || before.permitId !== permit.id) throw notFound('Limit');
+          if (before.appliesTo !== null && before.appliesTo < appliesFrom) {
+            throw conflict(`This version ended on ${before.appliesTo}; change the version in force instead`);
+          }
+          await checkLimit(manager, permit, { ...target.view(before), ...changes });
+          const written = Object.fromEntries(Object.entries(changes).filter(([, value]) => value !== undefined));
+          let row: PermitLimit;
+          if (appliesFrom <= before.appliesFrom) {
+            await manager.update(PermitLimit, { id: before.id }, written);
+            row = await manager.findOneByOrFail(PermitLimit, { id: before.id });
+          } else {
+            await manager.update(PermitLimit, { id: before.id }, { appliesTo: dayBefore(appliesFrom) });
+            const { id: _id, createdAt: _c, updatedAt: _u, ...kept } = before;
+            row = await manager.save(
+              PermitLimit,
+              manager.create(PermitLimit, { ...kept, ...written, appliesFrom, appliesTo: before.appliesTo, seriesId: before.seriesId }),
+            );
+            row = await manager.findOneByOrFail(PermitLimit, { id: row.id });
+          }
+          await recordTrail(manager, user, {
+            action: row.id === before.id ? 'update' : 'new-version',
+            entity: target.entity,
+            entityId: row.id,
+            siteId: permit.siteId,
+            before: target.view(before),
+            after: target.view(row),
+          });
+          await recheckResultsAtPoint(manager, row.dischargePointId);
+          return target.view(row);
         }),
       'statistic',
       duplicateLimit,
     );
-    await this.dataSource.transaction((manager) => recheckResultsAtPoint(manager, updated.dischargePointId));
     return updated;
   }
 
-  /** A limit that judged a compiled or sent period is kept: it may be changed (in the trail), not removed. */
-  async removeLimit(user: CurrentUser, id: string, limitId: string): Promise<void> {
+  /**
+   * A limit ends on a day (its version applies through it) and stays in the record. Only a limit
+   * of a permit that judged nothing yet (entered by mistake) is deleted, when no end day is given.
+   */
+  async removeLimit(user: CurrentUser, id: string, limitId: string, { endsOn }: EndLimitQuery): Promise<void> {
     const permit = await this.visiblePermit(user, id);
+    const target = limitTarget(permit.siteId);
+    if (endsOn) {
+      await this.dataSource.transaction(async (manager) => {
+        const before = await findLimitForUpdate(manager, limitId);
+        if (!before || before.permitId !== permit.id) throw notFound('Limit');
+        if (endsOn < before.appliesFrom) throw invalid({ endsOn: `Before the version started (${before.appliesFrom})` });
+        if (before.appliesTo !== null && before.appliesTo <= endsOn) throw conflict(`This version already ended on ${before.appliesTo}`);
+        await manager.update(PermitLimit, { id: before.id }, { appliesTo: endsOn });
+        const row = await manager.findOneByOrFail(PermitLimit, { id: before.id });
+        await recordTrail(manager, user, {
+          action: 'end',
+          entity: target.entity,
+          entityId: row.id,
+          siteId: permit.siteId,
+          before: target.view(before),
+          after: target.view(row),
+        });
+        await recheckResultsAtPoint(manager, row.dischargePointId);
+      });
+      return;
+    }
     let pointId = '';
-    await deleteTraced(this.dataSource, user, limitTarget(permit.siteId), limitId, async (manager, before) => {
+    await deleteTraced(this.dataSource, user, target, limitId, async (manager, before) => {
       if (before.permitId !== permit.id) throw notFound('Limit');
       if ((await countKeptPeriods(manager, permit.id)) > 0) {
-        throw conflict(
-          'This limit judged periods already compiled or sent, so it is kept and cannot be removed. Change its value instead; the trail keeps what it was.',
-        );
+        throw conflict('This limit judged periods already compiled or sent, so it is kept: end it on a day instead (endsOn).', {
+          endsOn: 'The last day the limit applies',
+        });
       }
       pointId = before.dischargePointId;
     });
@@ -145,6 +215,8 @@ export class PermitsService {
     return permit!;
   }
 }
+
+const dayBefore = (day: string) => DateTime.fromISO(day, { zone: 'UTC' }).minus({ days: 1 }).toISODate()!;
 
 /** A limit's point must be of the permit's site, its parameter known there, its unit comparable. */
 async function checkLimit(
