@@ -15,7 +15,7 @@ const seedOutcomes = {
  */
 export async function prepareDatabase(
   url: string,
-  options: { seed: SeedMode | false; reset?: boolean; appDatabaseUrl?: string },
+  options: { seed: SeedMode | false; reset?: boolean; appDatabaseUrl?: string; signOff?: boolean },
 ): Promise<void> {
   const dataSource = createDataSource(url);
   await dataSource.initialize();
@@ -28,7 +28,7 @@ export async function prepareDatabase(
     if (applied.length > 0) console.log(`Applied migrations: ${applied.map((m) => m.name).join(', ')}`);
     const appRole = options.appDatabaseUrl ? decodeURIComponent(new URL(options.appDatabaseUrl).username) : null;
     if (appRole && appRole !== decodeURIComponent(new URL(url).username)) await grantAppRole(dataSource, appRole);
-    if (options.seed) console.log(seedOutcomes[await seedDemo(dataSource, options.seed)]);
+    if (options.seed) console.log(seedOutcomes[await seedDemo(dataSource, options.seed, { signOff: options.signOff ?? true })]);
   } finally {
     await dataSource.destroy();
   }

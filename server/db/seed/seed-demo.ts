@@ -7,6 +7,7 @@ import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
 import { seedLab } from './seed-lab.js';
 import { seedOil } from './seed-oil.js';
 import { seedFlowsAndPeriods } from './seed-periods.js';
+import { seedSignOff } from './seed-sign-off.js';
 import { seedSetup } from './seed-setup.js';
 import { recordSeedInTrail } from './seed-trail.js';
 
@@ -24,7 +25,12 @@ export type SeedOutcome = 'seeded' | 'not-empty' | 'already-there';
  * it runs when the demo company is absent, touches no row outside the demo sites and never
  * updates a record that existed before it started.
  */
-export async function seedDemo(dataSource: DataSource, mode: SeedMode): Promise<SeedOutcome> {
+/**
+ * `signOff`: sign the demo's finished periods (as on a real site). The server tests' database
+ * leaves them as drafts, because those tests write into the demo's past months.
+ */
+export async function seedDemo(dataSource: DataSource, mode: SeedMode, options: { signOff?: boolean } = {}): Promise<SeedOutcome> {
+  options = { signOff: true, ...options };
   return dataSource.transaction(async (manager) => {
     // The seed writes its own trail entries (seed-trail.ts), like the app.
     await manager.query(`SET LOCAL decant.via_app = 'on'`);
@@ -80,6 +86,7 @@ export async function seedDemo(dataSource: DataSource, mode: SeedMode): Promise<
       coordinator,
     );
     await recordSeedInTrail(manager, [north.id, east.id]);
+    if (options.signOff) await seedSignOff(manager, [north.id, east.id], coordinator);
     return 'seeded';
   });
 }

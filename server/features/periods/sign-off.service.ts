@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import stableStringify from 'fast-json-stable-stringify';
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { RECENT_AUTHENTICATION_MS } from '../../auth/session.js';
 import type {
@@ -120,84 +120,12 @@ export class PeriodSignOffService {
     const reason = notSignable(period);
     if (reason) throw conflict(reason);
     if (Date.now() - authenticatedAt > RECENT_AUTHENTICATION_MS) throw reauthenticationRequired(period.id);
-    const statement = certificationStatements[period.permitKind];
-    await this.dataSource.transaction(async (manager) => {
-      const row = await lockPeriodRow(manager, period.id);
-      if (row.status === 'signed') throw conflict('This period is already signed');
-      const reviewed = row.summary as PeriodSummary | null;
-      if (!reviewed || new Date(reviewed.compiledAt).getTime() !== new Date(request.compiledAt).getTime()) {
-        throw conflict('The period was compiled again since the summary you reviewed: review the new compile, then sign', {
-          compiledAt: 'Not the latest compile',
-        });
-      }
-      const shown = reviewed;
-      const now = await summarise(manager, { ...period, status: row.status });
-      if (figuresOf(now) !== figuresOf(shown)) {
-        throw conflict('The records changed since the summary was compiled: compile again, review, then sign', {
-          compiledAt: 'The records changed since',
-        });
-      }
-      const items = await signOffItems(manager, period, shown);
-      if (items.length > 0 && !request.acknowledged) {
-        throw invalid({ acknowledged: `Acknowledge the ${items.length} finding(s), missed sample(s) and open follow-up(s) listed` });
-      }
-      const amendment = row.status === 'amended' ? await openAmendmentOf(manager, period.id, row.revision) : null;
-      const signature = {
-        periodId: period.id,
-        revision: row.revision + 1,
-        amendmentId: amendment?.id ?? null,
-        signedBy: user.id,
-        signerName: request.signerName,
-        signerTitle: request.signerTitle,
-        signedAt: new Date(),
-        statementSection: statement.section,
-        statement: statement.text,
-        acknowledged: items,
-        acknowledgementNote: request.acknowledgementNote,
-        summary: shown,
-        inputs: await inputHashes(manager, period),
-        ...(await trailHead(manager).then((head) => ({ trailHeadSeq: head.seq, trailHeadHash: head.hash }))),
-      };
-      const sha = sha256({ ...signature, signedAt: signature.signedAt.toISOString(), signerEmail: user.email });
-      await saveSignature(manager, { ...signature, sha256: sha });
-      await recordTrail(manager, user, {
-        action: 'sign',
-        entity: 'reporting-period',
-        entityId: period.id,
-        siteId: period.siteId,
-        before: { status: row.status, revision: row.revision },
-        after: {
-          status: 'signed',
-          revision: signature.revision,
-          sha256: sha,
-          signerName: request.signerName,
-          signerTitle: request.signerTitle,
-        },
-      });
-    });
+    await this.dataSource.transaction((manager) => signWithin(manager, user, period, request));
     return this.view((await findPeriod(this.dataSource, period.id))!);
   }
 
   async amend(user: CurrentUser, period: PeriodRecord, request: AmendRequest): Promise<PeriodSummary> {
-    await this.dataSource.transaction(async (manager) => {
-      const row = await lockPeriodRow(manager, period.id);
-      if (row.status !== 'signed') throw conflict('Only a signed period is amended; this one is not signed');
-      const amendment = await saveAmendment(manager, {
-        periodId: period.id,
-        amendsRevision: row.revision,
-        reason: request.reason,
-        openedBy: user.id,
-        openedByName: user.name,
-      });
-      await recordTrail(manager, user, {
-        action: 'amend',
-        entity: 'reporting-period',
-        entityId: period.id,
-        siteId: period.siteId,
-        before: { status: 'signed', revision: row.revision },
-        after: { status: 'amended', amendmentId: amendment.id, reason: request.reason },
-      });
-    });
+    await this.dataSource.transaction((manager) => amendWithin(manager, user, period, request));
     return this.view((await findPeriod(this.dataSource, period.id))!);
   }
 
@@ -218,6 +146,92 @@ export class PeriodSignOffService {
     if (!signature) throw notFound('Revision');
     return { ...signature.summary, status: 'signed', revision: signature.revision, signature: signatureView(signature), amendment: null };
   }
+}
+
+/** Who signs or amends: the signed-in person, or the demo seed acting for the demo coordinator. */
+type Signatory = Pick<CurrentUser, 'id' | 'email' | 'name'>;
+
+/**
+ * Signs a period inside the caller's transaction: the reviewed compile must still be what the
+ * records give, the listed items acknowledged; the snapshot (summary, input hashes, statement,
+ * signer, trail head) is stored with its SHA-256 and the period becomes signed.
+ */
+export async function signWithin(manager: EntityManager, user: Signatory, period: PeriodRecord, request: SignRequest): Promise<void> {
+  const statement = certificationStatements[period.permitKind];
+  const row = await lockPeriodRow(manager, period.id);
+  if (row.status === 'signed') throw conflict('This period is already signed');
+  const reviewed = row.summary as PeriodSummary | null;
+  if (!reviewed || new Date(reviewed.compiledAt).getTime() !== new Date(request.compiledAt).getTime()) {
+    throw conflict('The period was compiled again since the summary you reviewed: review the new compile, then sign', {
+      compiledAt: 'Not the latest compile',
+    });
+  }
+  const shown = reviewed;
+  const now = await summarise(manager, { ...period, status: row.status });
+  if (figuresOf(now) !== figuresOf(shown)) {
+    throw conflict('The records changed since the summary was compiled: compile again, review, then sign', {
+      compiledAt: 'The records changed since',
+    });
+  }
+  const items = await signOffItems(manager, period, shown);
+  if (items.length > 0 && !request.acknowledged) {
+    throw invalid({ acknowledged: `Acknowledge the ${items.length} finding(s), missed sample(s) and open follow-up(s) listed` });
+  }
+  const amendment = row.status === 'amended' ? await openAmendmentOf(manager, period.id, row.revision) : null;
+  const signature = {
+    periodId: period.id,
+    revision: row.revision + 1,
+    amendmentId: amendment?.id ?? null,
+    signedBy: user.id,
+    signerName: request.signerName,
+    signerTitle: request.signerTitle,
+    signedAt: new Date(),
+    statementSection: statement.section,
+    statement: statement.text,
+    acknowledged: items,
+    acknowledgementNote: request.acknowledgementNote,
+    summary: shown,
+    inputs: await inputHashes(manager, period),
+    ...(await trailHead(manager).then((head) => ({ trailHeadSeq: head.seq, trailHeadHash: head.hash }))),
+  };
+  const sha = sha256({ ...signature, signedAt: signature.signedAt.toISOString(), signerEmail: user.email });
+  await saveSignature(manager, { ...signature, sha256: sha });
+  await recordTrail(manager, user, {
+    action: 'sign',
+    entity: 'reporting-period',
+    entityId: period.id,
+    siteId: period.siteId,
+    before: { status: row.status, revision: row.revision },
+    after: {
+      status: 'signed',
+      revision: signature.revision,
+      sha256: sha,
+      signerName: request.signerName,
+      signerTitle: request.signerTitle,
+    },
+  });
+}
+
+/** Opens an amendment on a signed period inside the caller's transaction; its inputs unlock for it. */
+export async function amendWithin(manager: EntityManager, user: Signatory, period: PeriodRecord, request: AmendRequest): Promise<string> {
+  const row = await lockPeriodRow(manager, period.id);
+  if (row.status !== 'signed') throw conflict('Only a signed period is amended; this one is not signed');
+  const amendment = await saveAmendment(manager, {
+    periodId: period.id,
+    amendsRevision: row.revision,
+    reason: request.reason,
+    openedBy: user.id,
+    openedByName: user.name,
+  });
+  await recordTrail(manager, user, {
+    action: 'amend',
+    entity: 'reporting-period',
+    entityId: period.id,
+    siteId: period.siteId,
+    before: { status: 'signed', revision: row.revision },
+    after: { status: 'amended', amendmentId: amendment.id, reason: request.reason },
+  });
+  return amendment.id;
 }
 
 /** Why a period cannot be signed now, or null. */

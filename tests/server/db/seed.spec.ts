@@ -108,7 +108,32 @@ describe('the demo seed never touches real data', () => {
     expect(counted['shipment']).toBe(tables.shipments);
     expect(counted['user']).toBe(tables.people);
     expect(counted['permit']).toBe(tables.permits);
-    // The compiles and closings the seed made are its own: none is credited to a demo person.
-    expect(await dataSource.query(`SELECT count(*)::int AS n FROM trail_entry WHERE actor_email LIKE '%@decant.test'`)).toEqual([{ n: 0 }]);
+    // The compiles and closings the seed made are its own: only the signatures (and the one
+    // amendment) are the demo coordinator's, as a signature must be a person's.
+    expect(
+      await dataSource.query(`SELECT DISTINCT actor_email, action FROM trail_entry WHERE actor_email LIKE '%@decant.test' ORDER BY action`),
+    ).toEqual([
+      { actor_email: 'coordinator@decant.test', action: 'amend' },
+      { actor_email: 'coordinator@decant.test', action: 'compile' },
+      { actor_email: 'coordinator@decant.test', action: 'sign' },
+    ]);
+  });
+
+  it('shows every state of a period on first start: signed, draft, and amended to revision 2', async () => {
+    const states: Array<{ status: string; finished: boolean; n: number }> = await dataSource.query(
+      `SELECT rp.status, rp.ends_on < (now() AT TIME ZONE s.time_zone)::date AS finished, count(*)::int AS n
+         FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id JOIN company c ON c.id = s.company_id
+        WHERE c.name <> 'Fixture Works Ltd' GROUP BY 1, 2 ORDER BY 1, 2`,
+    );
+    // Every finished period is signed; the running ones are drafts.
+    expect(states.filter((row) => row.finished).map((row) => row.status)).toEqual(['signed']);
+    expect(states.filter((row) => !row.finished).map((row) => row.status)).toEqual(['compiled']);
+    const [amended] = await dataSource.query(
+      `SELECT s.revision, s.signer_name, s.statement_section, a.reason FROM period_signature s JOIN period_amendment a ON a.id = s.amendment_id`,
+    );
+    expect(amended).toMatchObject({ revision: 2, signer_name: 'Priya Raman', statement_section: '40 CFR 403.6(a)(2)(ii)' });
+    expect(amended.reason).toMatch(/flow meter was recalibrated/);
+    // The fixture company's period is left as it was: unsigned.
+    expect(await dataSource.query(`SELECT status FROM reporting_period WHERE starts_on = '2024-01-01'`)).toEqual([{ status: 'open' }]);
   });
 });
