@@ -47,8 +47,9 @@ export async function request<T>(method: string, path: string, options: { query?
   const payload = await response.json().catch(() => null);
   if (!response.ok) {
     const error = (payload as ErrorBody | null)?.error;
-    if (response.status === 401) onUnauthenticated();
-    throw new ApiError(response.status, error?.code ?? 'http_error', error?.message ?? response.statusText, error?.fields);
+    // A 401 that asks for a fresh authentication (before a signature) is the page's to handle.
+    if (response.status === 401 && error?.code === 'unauthenticated') onUnauthenticated();
+    throw new ApiError(response.status, error?.code ?? 'http_error', error?.message ?? response.statusText, error?.fields, payload);
   }
   return payload as T;
 }

@@ -10,4 +10,6 @@ export const permitsApi = {
   updateLimit: (permitId: string, id: string, body: RequestOf<typeof UpdateLimitRequest>) =>
     api.patch<Limit>(`/permits/${permitId}/limits/${id}`, body),
   deleteLimit: (permitId: string, id: string) => api.delete<void>(`/permits/${permitId}/limits/${id}`),
+  /** The limit stops applying after `endsOn`; it stays in the record. */
+  endLimit: (permitId: string, id: string, endsOn: string) => api.delete<void>(`/permits/${permitId}/limits/${id}?endsOn=${endsOn}`),
 };

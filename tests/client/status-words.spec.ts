@@ -7,6 +7,10 @@ import { mountWithApp } from './mount';
 // The product brief: status is never colour alone; every state also has a word and an icon.
 const row = (over: Partial<LimitRow>): LimitRow => ({
   limitId: 'L',
+  appliesFrom: '2026-01-01',
+  appliesTo: '2026-01-31',
+  inputsWithFindings: [],
+  grabsOverOnCompliantDays: [],
   dischargePointId: 'P',
   pointCode: 'OF-001',
   parameterId: 'X',
