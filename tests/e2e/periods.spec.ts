@@ -38,6 +38,50 @@ describe('periods and follow-ups in a browser', () => {
     await screenshot(page, 'follow-ups');
   });
 
+  it('lets the coordinator sign a finished period, signing in again at the provider first, and shows "signed by"', async () => {
+    const { page } = browser;
+    await signIn('coordinator@decant.test');
+    // The second half of 2025: finished, and no other test writes into it.
+    const [period] = await stack.dataSource.query(
+      `SELECT rp.id FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id WHERE p.number = 'TCU-IU-0417' AND rp.starts_on = '2025-07-01'`,
+    );
+    // The sign-in was 20 minutes ago: a signature needs a fresh one.
+    await stack.dataSource.query(
+      `UPDATE session SET sess = (sess::jsonb || jsonb_build_object('authenticatedAt', $1::bigint))::json
+        WHERE sess::jsonb->>'userId' = (SELECT id::text FROM app_user WHERE email = 'coordinator@decant.test')`,
+      [Date.now() - 20 * 60 * 1000],
+    );
+    await page.goto(`${stack.appUrl}/periods/${period.id}`);
+    await page.locator('[data-test="draft"]').waitFor();
+    await page.click('[data-test="open-sign"]');
+    await page.locator('[data-test="reauthenticate"]').waitFor();
+    await screenshot(page, 'period-sign-reauthenticate');
+    await page.getByRole('link', { name: 'Sign in again' }).click();
+    // The provider asks for the password again (prompt=login), whatever its own session says.
+    await page.locator('#password').waitFor();
+    await page.fill('#email', 'coordinator@decant.test');
+    await page.fill('#password', demoPassword);
+    await page.click('button[type=submit]');
+    await page.locator('[data-test="statement"]').waitFor();
+    expect(await page.locator('[data-test="statement"]').textContent()).toMatch(/^I certify under penalty of law/);
+    if (await page.locator('[data-test="acknowledge"]').count()) await page.locator('[data-test="acknowledge"] input').check();
+    await page.locator('[data-test="accept-statement"] input').check();
+    await page.getByLabel('Title').fill('EHS coordinator');
+    await screenshot(page, 'period-sign');
+    await page.click('[data-test="sign"]');
+    await page.locator('[data-test="signed-by"]').waitFor();
+    expect(await page.locator('[data-test="signed-by"]').textContent()).toContain('Signed by Priya Raman, EHS coordinator');
+    expect(await page.locator('[data-test="compile"]').count()).toBe(0);
+    await page.locator('[data-test="revisions"]').getByText('Revision 1').waitFor();
+    await screenshot(page, 'period-signed');
+
+    await signIn('auditor@decant.test');
+    await page.goto(`${stack.appUrl}/periods/${period.id}`);
+    await page.locator('[data-test="signed-by"]').waitFor();
+    for (const action of ['compile', 'open-sign', 'open-amend']) expect(await page.locator(`[data-test="${action}"]`).count()).toBe(0);
+    await screenshot(page, 'period-signed-auditor');
+  });
+
   it('lets the auditor read a period without compiling it', async () => {
     const { page } = browser;
     await signIn('auditor@decant.test');

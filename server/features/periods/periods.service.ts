@@ -1,4 +1,3 @@
-import { createHash } from 'node:crypto';
 import { DateTime } from 'luxon';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { CurrentUser } from '../../auth/current-user.js';
@@ -13,6 +12,7 @@ import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
 import type { PeriodRecord } from './period-input.repository.js';
+import { exceedanceSourceId, missedMonitoringSourceId, stableId } from './finding-ids.js';
 import { PeriodSignOffService } from './sign-off.service.js';
 import { summarise } from './summarise.js';
 import {
@@ -28,12 +28,6 @@ import {
 } from './periods.repository.js';
 
 type Db = DataSource | EntityManager;
-
-/** The same id for the same finding at every compile, so its follow-ups open once. */
-function stableId(...parts: string[]): string {
-  const hex = createHash('sha256').update(parts.join('|')).digest('hex');
-  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-8${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
-}
 
 /** Creates the permit's periods up to the one running today; idempotent. */
 export async function ensurePeriods(db: Db, permitId: string): Promise<void> {
@@ -86,7 +80,7 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
           siteId: period.siteId,
           kind: obligation.kind,
           sourceEntity: 'exceedance',
-          sourceId: stableId(row.dischargePointId, row.parameterId, exceedance.date),
+          sourceId: exceedanceSourceId(row, exceedance.date),
           title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`,
           dueAt: obligation.dueAt,
         });
@@ -97,7 +91,7 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
         siteId: period.siteId,
         kind: 'missed-sample',
         sourceEntity: 'missed-monitoring',
-        sourceId: stableId(row.dischargePointId, row.parameterId, missed.unit),
+        sourceId: missedMonitoringSourceId(row, missed.unit),
         title: `Missed sample: ${row.parameter} at ${row.pointCode}, ${missed.unit} (${missed.taken} of ${missed.required})`,
         dueAt: DateTime.fromISO(period.dueOn, { zone: period.timeZone }).endOf('day').toJSDate(),
       });
