@@ -80,8 +80,10 @@ export function permissionsOf(role: Role | null | undefined): Action[] {
   return actions.filter((action) => can(role, action));
 }
 
+/** The first 24 hours after a record is entered: corrections after them say why (oil log, certificates, shipments). */
+export const CORRECTION_WINDOW_MS = 24 * 3600 * 1000;
 /** An author's own correction window for an oil-log entry; after it a reason is required. */
-export const OIL_LOG_AUTHOR_WINDOW_MS = 24 * 3600 * 1000;
+export const OIL_LOG_AUTHOR_WINDOW_MS = CORRECTION_WINDOW_MS;
 
 /** Where a role lands after sign-in: the operator's work is the oil log, everyone else's the overview. */
 export type LandingPage = 'oil-log' | 'overview';

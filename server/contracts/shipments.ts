@@ -41,7 +41,9 @@ export const CreateShipmentRequest = ShipmentFields.refine(manifestNumber, {
   path: ['documentNumber'],
   message: 'A manifest tracking number is 9 digits then 3 letters',
 }).refine(copyAfterShipment, { path: ['signedCopyReceivedOn'], message: 'Cannot come back before the shipment left' });
+/** A correction (anything but the signed copy's return) after the first 24 hours says why; the trail keeps the reason. */
 export const UpdateShipmentRequest = updateOf(ShipmentFields.omit({ siteId: true }))
+  .extend({ reason: z.string().trim().max(500).nullable().default(null) })
   .refine(manifestNumber, { path: ['documentNumber'], message: 'A manifest tracking number is 9 digits then 3 letters' })
   .refine(copyAfterShipment, { path: ['signedCopyReceivedOn'], message: 'Cannot come back before the shipment left' });
 export type CreateShipmentRequest = z.infer<typeof CreateShipmentRequest>;
@@ -65,6 +67,8 @@ export interface ShipmentView extends Omit<z.infer<typeof ShipmentFields>, never
   id: string;
   quantityLitres: number;
   status: (typeof shipmentStatuses)[number];
+  /** When it was entered: corrections after the first 24 hours need a reason. */
+  enteredAt: string;
   deadlines: ShipmentDeadlineView[];
   flags: Flag[];
   files: Array<{ id: string; fileName: string; mediaType: string; sizeBytes: number; sha256: string }>;

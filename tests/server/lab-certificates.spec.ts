@@ -98,6 +98,29 @@ describe('lab certificates', () => {
     expect(listed.body.items.some((row: { certificateId: string }) => row.certificateId === created.body.id)).toBe(true);
   });
 
+  it('asks why a certificate entered more than 24 hours ago is corrected, and keeps the reason in the trail', async () => {
+    const body = certificateBody(ids);
+    const created = await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(body).expect(201);
+    await t.dataSource.query(`UPDATE lab_certificate SET created_at = now() - interval '25 hours' WHERE id = $1`, [created.body.id]);
+    const { siteId: _siteId, ...correction } = body;
+    const refused = await request(t.app)
+      .put(`/api/lab-certificates/${created.body.id}`)
+      .set('cookie', coordinator)
+      .send(correction)
+      .expect(400);
+    expect(refused.body.error.fields).toHaveProperty('reason');
+    await request(t.app)
+      .put(`/api/lab-certificates/${created.body.id}`)
+      .set('cookie', coordinator)
+      .send({ ...correction, reason: 'Lab reissued the report' })
+      .expect(200);
+    const [entry] = await t.dataSource.query(
+      `SELECT after FROM trail_entry WHERE entity = 'lab-certificate' AND entity_id = $1 ORDER BY chain_seq DESC LIMIT 1`,
+      [created.body.id],
+    );
+    expect(entry.after.reason).toBe('Lab reissued the report');
+  });
+
   it('flags a result over the daily maximum at once, and re-flags when the limit changes', async () => {
     const body = certificateBody(ids);
     body.samples[0]!.results[0]!.value = '90';

@@ -150,6 +150,37 @@ describe('oil log, upkeep and shipments', () => {
       expect(created.body.flags.map((f: { code: string }) => f.code)).toEqual(['halogens-presumption']);
     });
 
+    it('asks why papers entered more than 24 hours ago are corrected, and keeps the reason in the trail', async () => {
+      const created = await request(t.app)
+        .post('/api/shipments')
+        .set('cookie', coordinator)
+        .send(shipment({ shippedOn: daysAgo(3) }))
+        .expect(201);
+      await t.dataSource.query(`UPDATE shipment SET created_at = now() - interval '25 hours' WHERE id = $1`, [created.body.id]);
+      const refused = await request(t.app)
+        .patch(`/api/shipments/${created.body.id}`)
+        .set('cookie', coordinator)
+        .send({ quantity: 50 })
+        .expect(400);
+      expect(refused.body.error.fields).toHaveProperty('reason');
+      // Recording the signed copy's return is a step of the papers, not a correction.
+      await request(t.app)
+        .patch(`/api/shipments/${created.body.id}`)
+        .set('cookie', coordinator)
+        .send({ signedCopyReceivedOn: daysAgo(1) })
+        .expect(200);
+      await request(t.app)
+        .patch(`/api/shipments/${created.body.id}`)
+        .set('cookie', coordinator)
+        .send({ quantity: 50, reason: 'Weight ticket reread' })
+        .expect(200);
+      const [entry] = await t.dataSource.query(
+        `SELECT after FROM trail_entry WHERE entity = 'shipment' AND entity_id = $1 ORDER BY chain_seq DESC LIMIT 1`,
+        [created.body.id],
+      );
+      expect(entry.after.reason).toBe('Weight ticket reread');
+    });
+
     it('refuses malformed papers and writes nothing', async () => {
       const before = await t.count('shipment');
       const cases: Array<[Record<string, unknown>, string]> = [

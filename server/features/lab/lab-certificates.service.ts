@@ -9,7 +9,7 @@ import type {
 } from '../../contracts/lab.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
-import { OIL_LOG_AUTHOR_WINDOW_MS as CORRECTION_WINDOW_MS } from '../../contracts/permissions.js';
+import { CORRECTION_WINDOW_MS } from '../../contracts/permissions.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { checkUpload, claimStoredFiles, sendStoredFile, storeFile, type Upload } from '../../kernel/files/stored-files.js';
 import { recordTrail } from '../../kernel/trail/trail.js';

@@ -34,6 +34,7 @@ const select = (
 
 interface ShipmentRow {
   id: string;
+  created_at: Date;
   site_id: string;
   shipped_on: string;
   document_kind: ShipmentView['documentKind'];
@@ -91,6 +92,7 @@ function view(row: ShipmentRow): ShipmentView {
     leadPpm: n(row.lead_ppm),
     flashPointF: n(row.flash_point_f),
     signedCopyReceivedOn: row.signed_copy_received_on,
+    enteredAt: row.created_at.toISOString(),
     status: row.status,
     deadlines,
     flags: row.flags,

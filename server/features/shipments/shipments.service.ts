@@ -1,6 +1,6 @@
 import type { Response } from 'express';
 import type { DataSource, EntityManager } from 'typeorm';
-import { can } from '../../contracts/permissions.js';
+import { can, CORRECTION_WINDOW_MS } from '../../contracts/permissions.js';
 import type { CreateShipmentRequest, ShipmentQuery, ShipmentView, UpdateShipmentRequest } from '../../contracts/shipments.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
@@ -75,14 +75,21 @@ export class ShipmentsService {
         this.dataSource.transaction(async (manager) => {
           const before = await visibleShipment(manager, user, id);
           assertMayChange(user, before);
-          const merged = { ...before, ...changes };
+          const { reason, ...fields } = changes;
+          const corrects = Object.entries(fields).some(
+            ([key, value]) => key !== 'signedCopyReceivedOn' && value !== undefined && value !== before[key as keyof ShipmentView],
+          );
+          if (corrects && !reason && Date.now() - new Date(before.enteredAt).getTime() > CORRECTION_WINDOW_MS) {
+            throw invalid({ reason: 'Entered more than 24 hours ago: say why it is corrected' });
+          }
+          const merged = { ...before, ...fields };
           if (merged.signedCopyReceivedOn && merged.signedCopyReceivedOn < merged.shippedOn) {
             throw invalid({ signedCopyReceivedOn: 'Cannot come back before the shipment left' });
           }
           if (merged.signedCopyReceivedOn && merged.signedCopyReceivedOn > (await siteToday(manager, before.siteId))) {
             throw invalid({ signedCopyReceivedOn: 'Cannot be in the future' });
           }
-          await updateShipment(manager, before.id, columns(merged as never, changes as ShipmentBody));
+          await updateShipment(manager, before.id, columns(merged as never, fields as ShipmentBody));
           const after = (await findShipment(manager, before.id))!;
           await recordTrail(manager, user, {
             action: 'update',
@@ -90,7 +97,7 @@ export class ShipmentsService {
             entityId: before.id,
             siteId: before.siteId,
             before,
-            after,
+            after: { ...after, reason },
           });
           return after;
         }),
