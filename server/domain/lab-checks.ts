@@ -191,7 +191,10 @@ export function checkResult(result: ResultFacts, sample: SampleFacts, limits: Li
       flags.push({
         code: 'over-limit',
         severity: 'error',
-        message: `${comparable} ${limit.unit} is over the ${limit.statistic.replace('-', ' ')} of ${limit.value} ${limit.unit}`,
+        message:
+          limit.statistic === 'daily-maximum'
+            ? `This grab, ${comparable} ${limit.unit}, is over the daily maximum of ${limit.value} ${limit.unit}; the period judges the day's discharge (the average of the day's grabs), which may be within it`
+            : `${comparable} ${limit.unit} is over the instantaneous maximum of ${limit.value} ${limit.unit}`,
         source: 'the permit; 40 CFR 122.2 and 403.3(l) for the statistic',
       });
     }

@@ -98,6 +98,15 @@ describe('lab certificates', () => {
     expect(listed.body.items.some((row: { certificateId: string }) => row.certificateId === created.body.id)).toBe(true);
   });
 
+  it('shows a detected oil and grease result below the ML as "<5.0" (EPA Method 1664 §12.3.1)', async () => {
+    const body = certificateBody(ids);
+    body.samples[0]!.results[0]!.value = '3.2';
+    const created = await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(body).expect(201);
+    const result = created.body.samples[0].results[0];
+    expect(result).toMatchObject({ valueReported: '3.2', valueShown: '<5.0' });
+    expect(result.flags.map((f: { code: string }) => f.code)).toContain('below-ml-as-number');
+  });
+
   it('asks why a certificate entered more than 24 hours ago is corrected, and keeps the reason in the trail', async () => {
     const body = certificateBody(ids);
     const created = await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(body).expect(201);

@@ -17,7 +17,7 @@ import type {
   StoredFileView,
 } from '../../contracts/lab.js';
 import type { Page } from '../../contracts/paging.js';
-import { toMethodPrecision } from '../../domain/method-1664.js';
+import { MINIMUM_LEVEL, toMethodPrecision } from '../../domain/method-1664.js';
 import { queryPage } from '../../db/page.js';
 
 type Db = DataSource | EntityManager;
@@ -26,15 +26,25 @@ const local = (instant: Date | null, zone: string) =>
   instant ? DateTime.fromJSDate(instant, { zone }).toFormat("yyyy-MM-dd'T'HH:mm") : null;
 
 /** The value as it should be shown: Method 1664 precision for oil and grease in mg/L, as reported otherwise. */
+/**
+ * A result as it is reported. Method 1664 §12.3.1: a result below the minimum level of
+ * quantitation is reported as "<ML" ("<5.0 mg/L", or the lab's own ML), however the lab wrote
+ * it; the period summary counts it the same way.
+ */
 export function shownValue(row: {
   qualifier: string | null;
   value_reported: string;
   fraction: string | null;
   method: string;
   unit: string;
+  ml?: string | number | null;
 }): string {
   if (row.qualifier === '<') return `<${row.value_reported}`;
-  if (row.fraction && /^1664/.test(row.method) && row.unit === 'mg/L') return toMethodPrecision(Number(row.value_reported));
+  if (row.fraction && /^1664/.test(row.method) && row.unit === 'mg/L') {
+    const ml = row.ml === null || row.ml === undefined ? MINIMUM_LEVEL : Number(row.ml);
+    const value = Number(row.value_reported);
+    return value < ml ? `<${ml.toFixed(1)}` : toMethodPrecision(value);
+  }
   return row.value_reported;
 }
 
@@ -52,6 +62,7 @@ function resultView(result: LabResult & { parameter: Parameter; qcBatch?: QcBatc
       fraction: result.parameter.fraction,
       method: result.method,
       unit: result.unit,
+      ml: result.ml,
     }),
     mdl: result.mdl,
     ml: result.ml,
