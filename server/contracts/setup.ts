@@ -53,16 +53,8 @@ export const CreateParameterRequest = ParameterFields;
 export const UpdateParameterRequest = updateOf(ParameterFields.omit({ siteId: true }));
 export type Parameter = z.infer<typeof ParameterFields> & { id: string };
 
-export const PermitFields = z.object({
-  siteId: uuid,
-  kind: z.enum(['pretreatment', 'npdes']),
-  number: z.string().trim().min(1, 'Enter the permit number').max(60),
-  issuingAuthority: z.string().trim().min(1, 'Enter the issuing authority').max(200),
-  authorityEmail: z.email('Enter a valid e-mail address').nullable().default(null),
-  effectiveFrom: isoDate,
-  effectiveTo: isoDate.nullable().default(null),
-  reportingFrequency: z.enum(['monthly', 'quarterly', 'semiannual']),
-  reportDueDays: z.number().int().min(0).max(365),
+/** The permit settings that change results: versioned, each version applying from a day. */
+export const PermitSettingsFields = z.object({
   nonDetectPolicy: z.enum(['zero', 'mdl', 'ml', 'half-mdl']),
   dailyMaxAppliesToEachGrab: z.boolean().default(false),
   massLoadingFactor: z.union([z.literal(8.34), z.literal(8.3454)], 'Either 8.34 or 8.3454').default(8.34),
@@ -71,14 +63,37 @@ export const PermitFields = z.object({
   /** Sampling days (two grabs on one day are one sampling event; common practice) or every sample. */
   monitoringCounts: z.enum(['sampling-days', 'samples']).default('sampling-days'),
 });
+export const permitSettingNames = Object.keys(PermitSettingsFields.shape) as Array<keyof z.infer<typeof PermitSettingsFields>>;
+
+export const PermitFields = z
+  .object({
+    siteId: uuid,
+    kind: z.enum(['pretreatment', 'npdes']),
+    number: z.string().trim().min(1, 'Enter the permit number').max(60),
+    issuingAuthority: z.string().trim().min(1, 'Enter the issuing authority').max(200),
+    authorityEmail: z.email('Enter a valid e-mail address').nullable().default(null),
+    effectiveFrom: isoDate,
+    effectiveTo: isoDate.nullable().default(null),
+    reportingFrequency: z.enum(['monthly', 'quarterly', 'semiannual']),
+    reportDueDays: z.number().int().min(0).max(365),
+  })
+  .extend(PermitSettingsFields.shape);
 const effectiveOrder = (permit: { effectiveFrom?: string; effectiveTo?: string | null }) =>
   !permit.effectiveFrom || !permit.effectiveTo || permit.effectiveTo >= permit.effectiveFrom;
 export const CreatePermitRequest = PermitFields.refine(effectiveOrder, { path: ['effectiveTo'], message: 'Ends before it starts' });
-export const UpdatePermitRequest = updateOf(PermitFields.omit({ siteId: true })).refine(effectiveOrder, {
-  path: ['effectiveTo'],
-  message: 'Ends before it starts',
-});
-export type Permit = z.infer<typeof PermitFields> & { id: string };
+/** `settingsFrom`: the first day changed settings apply (by default the start of the running period); earlier periods keep theirs. */
+export const UpdatePermitRequest = updateOf(PermitFields.omit({ siteId: true }))
+  .extend({ settingsFrom: isoDate.optional() })
+  .refine(effectiveOrder, {
+    path: ['effectiveTo'],
+    message: 'Ends before it starts',
+  });
+export type Permit = z.infer<typeof PermitFields> & {
+  id: string;
+  /** The first day the settings shown (those in force today) apply. */
+  settingsFrom: string;
+};
+export type PermitSettingsValues = z.infer<typeof PermitSettingsFields>;
 
 export const limitStatistics = ['daily-maximum', 'monthly-average', 'instantaneous-minimum', 'instantaneous-maximum'] as const;
 export const LimitFields = z.object({

@@ -13,6 +13,7 @@ import { PeriodAmendment } from '../features/periods/period-amendment.entity.js'
 import { PeriodSignature } from '../features/periods/period-signature.entity.js';
 import { ReportingPeriod } from '../features/periods/reporting-period.entity.js';
 import { PermitLimit } from '../features/permits/permit-limit.entity.js';
+import { PermitSettings } from '../features/permits/permit-settings.entity.js';
 import { Permit } from '../features/permits/permit.entity.js';
 import { ShipmentFile } from '../features/shipments/shipment-file.entity.js';
 import { Shipment } from '../features/shipments/shipment.entity.js';
@@ -39,6 +40,7 @@ export const entities = [
   Parameter,
   Permit,
   PermitLimit,
+  PermitSettings,
   LabCertificate,
   QcBatch,
   LabSample,

@@ -26,9 +26,13 @@ async function setUp(db: DataSource): Promise<{ periodId: string; siteId: string
     `INSERT INTO app_user (email, name, role) VALUES ('bench@decant.test', 'Bench', 'coordinator') RETURNING id`,
   );
   const [permit] = await db.query(
-    `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days, non_detect_policy, mass_loading_factor, snc_window)
-     VALUES ($1, 'pretreatment', 'BENCH-1', 'Bench authority', '2000-01-01', 'semiannual', 30, 'zero', 8.34, 'calendar-halves') RETURNING id`,
+    `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days)
+     VALUES ($1, 'pretreatment', 'BENCH-1', 'Bench authority', '2000-01-01', 'semiannual', 30) RETURNING id`,
     [site.id],
+  );
+  await db.query(
+    `INSERT INTO permit_settings (permit_id, applies_from, non_detect_policy, mass_loading_factor, snc_window) VALUES ($1, '2000-01-01', 'zero', 8.34, 'calendar-halves')`,
+    [permit.id],
   );
   await db.query(
     `INSERT INTO parameter (site_id, code, name, default_unit, snc_review_factor)

@@ -237,9 +237,13 @@ describe('periods, summaries and follow-ups', () => {
   it('lists periods without writing any: they are created with the permit, and by the hourly tick as the calendar turns', async () => {
     // A permit that reached the database without the API (say, restored), so it has no periods yet.
     const [permit] = await t.dataSource.query(
-      `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days, non_detect_policy, mass_loading_factor, snc_window)
-       VALUES ($1, 'pretreatment', 'TICK-1', 'Control authority', '2026-01-01', 'quarterly', 30, 'zero', 8.34, 'calendar-halves') RETURNING id`,
+      `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days)
+       VALUES ($1, 'pretreatment', 'TICK-1', 'Control authority', '2026-01-01', 'quarterly', 30) RETURNING id`,
       [ids.north],
+    );
+    await t.dataSource.query(
+      `INSERT INTO permit_settings (permit_id, applies_from, non_detect_policy, mass_loading_factor, snc_window) VALUES ($1, '2026-01-01', 'zero', 8.34, 'calendar-halves')`,
+      [permit.id],
     );
     const count = async () =>
       (await t.dataSource.query('SELECT count(*)::int AS n FROM reporting_period WHERE permit_id = $1', [permit.id]))[0].n;

@@ -182,6 +182,22 @@ describe('sign-off, the lock and amendments', () => {
     expect(JSON.stringify(after.rows)).toBe(JSON.stringify(first.rows));
     expect(JSON.stringify(after.significantNoncompliance)).toBe(JSON.stringify(first.significantNoncompliance));
 
+    // New permit settings from the running period on leave the signed period computed as it was.
+    const settings = await request(t.app)
+      .patch(`/api/permits/${permitId}`)
+      .set('cookie', coordinator)
+      .send({ nonDetectPolicy: 'half-mdl' })
+      .expect(200);
+    expect(settings.body).toMatchObject({ nonDetectPolicy: 'half-mdl' });
+    expect(settings.body.settingsFrom > '2026-03-31').toBe(true);
+    expect((await shown()).nonDetectPolicy).toBe('zero');
+    const settingsRefused = await request(t.app)
+      .patch(`/api/permits/${permitId}`)
+      .set('cookie', coordinator)
+      .send({ nonDetectPolicy: 'ml', settingsFrom: '2026-03-01' })
+      .expect(409);
+    expect(settingsRefused.body.error.message).toMatch(/computed with these settings/);
+
     // A change that would judge the signed period differently is refused, naming the period.
     const refused = await request(t.app)
       .patch(`/api/permits/${permitId}/limits/${limitId}`)
@@ -207,6 +223,11 @@ describe('sign-off, the lock and amendments', () => {
       ),
     ).rejects.toMatchObject({ code: 'DL409' });
     await expect(t.dataSource.query(`UPDATE permit_limit SET value = 1 WHERE id = $1`, [limitId])).rejects.toMatchObject({ code: 'DL409' });
+    await expect(
+      t.dataSource.query(`UPDATE permit_settings SET mass_loading_factor = 8.3454 WHERE permit_id = $1 AND applies_from = '2026-03-01'`, [
+        permitId,
+      ]),
+    ).rejects.toMatchObject({ code: 'DL409' });
     await expect(t.dataSource.query(`UPDATE period_signature SET signer_name = 'x' WHERE period_id = $1`, [periodId])).rejects.toThrow();
     const [{ value }] = await t.dataSource.query(`SELECT value FROM lab_result WHERE id = $1`, [resultId]);
     expect(Number(value)).toBe(24);

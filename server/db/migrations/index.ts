@@ -9,6 +9,7 @@ import { TrailChain1796230800000 } from './1796230800000-TrailChain.js';
 import { FileOwners1796234400000 } from './1796234400000-FileOwners.js';
 import { DocumentKeys1796238000000 } from './1796238000000-DocumentKeys.js';
 import { PeriodSignOff1796241600000 } from './1796241600000-PeriodSignOff.js';
+import { PermitSettingsVersions1796245200000 } from './1796245200000-PermitSettingsVersions.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -23,4 +24,5 @@ export const migrations = [
   FileOwners1796234400000,
   DocumentKeys1796238000000,
   PeriodSignOff1796241600000,
+  PermitSettingsVersions1796245200000,
 ];

@@ -40,10 +40,16 @@ export async function seedSetup(manager: EntityManager, siteIds: Record<'north' 
     if (existing.length > 0) continue;
     const [permit] = await manager.query(
       `INSERT INTO permit (site_id, kind, number, issuing_authority, authority_email, effective_from, effective_to, reporting_frequency,
-         report_due_days, non_detect_policy, daily_max_applies_to_each_grab, mass_loading_factor, snc_window, late_report_days)
+         report_due_days)
        VALUES ($1, 'pretreatment', $2, 'Tamsin Creek Utilities, Pretreatment Office', 'pretreatment@tamsincreek-utilities.test',
-         $3, '2030-06-30', 'semiannual', 30, 'zero', false, 8.34, 'calendar-halves', 45) RETURNING id`,
+         $3, '2030-06-30', 'semiannual', 30) RETURNING id`,
       [siteId, spec.number, effectiveFrom],
+    );
+    await manager.query(
+      `INSERT INTO permit_settings (permit_id, applies_from, non_detect_policy, daily_max_applies_to_each_grab, mass_loading_factor, snc_window,
+         late_report_days, monitoring_counts)
+       VALUES ($1, $2, 'zero', false, 8.34, 'calendar-halves', 45, 'sampling-days')`,
+      [permit.id, effectiveFrom],
     );
     const [outfall] = await manager.query('SELECT id FROM discharge_point WHERE site_id = $1 AND code = $2', [siteId, spec.outfall]);
     const limits: Array<[string, string, number, string, number, string, string]> = [

@@ -18,6 +18,10 @@ const seededRecords: Array<{ entity: string; rows: string }> = [
   { entity: 'discharge-point', rows: 'SELECT d.id::text, d.site_id, to_jsonb(d) FROM discharge_point d WHERE d.site_id = ANY($1)' },
   { entity: 'permit', rows: 'SELECT p.id::text, p.site_id, to_jsonb(p) FROM permit p WHERE p.site_id = ANY($1)' },
   {
+    entity: 'permit-settings',
+    rows: 'SELECT v.id::text, p.site_id, to_jsonb(v) FROM permit_settings v JOIN permit p ON p.id = v.permit_id WHERE p.site_id = ANY($1)',
+  },
+  {
     entity: 'limit',
     rows: 'SELECT l.id::text, p.site_id, to_jsonb(l) FROM permit_limit l JOIN permit p ON p.id = l.permit_id WHERE p.site_id = ANY($1)',
   },

@@ -34,11 +34,12 @@ interface PeriodRow {
   today: string;
 }
 
-// Raw SQL: a period comes with its permit's settings and the site's today in one read.
+// Raw SQL: a period comes with the permit settings in force on its first day and the site's today in one read.
 const periodSelect = `SELECT rp.id, rp.permit_id, p.site_id, s.time_zone, rp.starts_on::text, rp.ends_on::text, rp.due_on::text, rp.status, rp.compiled_at,
-    rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, p.late_report_days, p.non_detect_policy, p.mass_loading_factor,
-    p.daily_max_applies_to_each_grab, p.snc_window, p.monitoring_counts, rp.revision, (now() AT TIME ZONE s.time_zone)::date::text AS today
-  FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id`;
+    rp.submitted_on::text, p.kind AS permit_kind, p.number AS permit_number, ps.late_report_days, ps.non_detect_policy, ps.mass_loading_factor,
+    ps.daily_max_applies_to_each_grab, ps.snc_window, ps.monitoring_counts, rp.revision, (now() AT TIME ZONE s.time_zone)::date::text AS today
+  FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id
+  CROSS JOIN LATERAL permit_settings_on(p.id, rp.starts_on) ps`;
 const record = (row: PeriodRow): PeriodRecord => ({
   id: row.id,
   permitId: row.permit_id,

@@ -93,11 +93,11 @@ export async function inputHashes(manager: EntityManager, period: PeriodRecord):
       WHERE l.permit_id = $1 AND l.applies_from <= $3 AND (l.applies_to IS NULL OR l.applies_to >= $2) ORDER BY l.id`,
     [period.permitId, from, period.endsOn],
   );
+  // The settings version the period used, with the permit's kind.
   const [settings] = await manager.query(
-    `SELECT encode(sha256(convert_to(jsonb_build_object('kind', kind, 'nonDetectPolicy', non_detect_policy, 'massLoadingFactor', mass_loading_factor,
-        'dailyMaxAppliesToEachGrab', daily_max_applies_to_each_grab, 'lateReportDays', late_report_days, 'sncWindow', snc_window,
-        'monitoringCounts', monitoring_counts)::text, 'UTF8')), 'hex') AS sha FROM permit WHERE id = $1`,
-    [period.permitId],
+    `SELECT encode(sha256(convert_to((to_jsonb(ps) || jsonb_build_object('kind', p.kind))::text, 'UTF8')), 'hex') AS sha
+       FROM permit p CROSS JOIN LATERAL permit_settings_on(p.id, $2) ps WHERE p.id = $1`,
+    [period.permitId, period.startsOn],
   );
   return {
     results: pairs(results),

@@ -1,6 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
 import type { Permit as PermitView } from '../../contracts/setup.js';
-import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 
 @Check('permit_kind_check', `((kind)::text = ANY ((ARRAY['pretreatment'::character varying, 'npdes'::character varying])::text[]))`)
@@ -9,20 +8,6 @@ import { Site } from '../../kernel/sites/site.entity.js';
   `((reporting_frequency)::text = ANY ((ARRAY['monthly'::character varying, 'quarterly'::character varying, 'semiannual'::character varying])::text[]))`,
 )
 @Check('permit_report_due_days_check', `((report_due_days >= 0) AND (report_due_days <= 365))`)
-@Check(
-  'permit_non_detect_policy_check',
-  `((non_detect_policy)::text = ANY ((ARRAY['zero'::character varying, 'mdl'::character varying, 'ml'::character varying, 'half-mdl'::character varying])::text[]))`,
-)
-@Check('permit_mass_loading_factor_check', `(mass_loading_factor = ANY (ARRAY[8.34, 8.3454]))`)
-@Check(
-  'permit_snc_window_check',
-  `((snc_window)::text = ANY ((ARRAY['calendar-halves'::character varying, 'rolling'::character varying])::text[]))`,
-)
-@Check('permit_late_report_days_check', `((late_report_days >= 1) AND (late_report_days <= 365))`)
-@Check(
-  'permit_monitoring_counts_check',
-  `((monitoring_counts)::text = ANY ((ARRAY['sampling-days'::character varying, 'samples'::character varying])::text[]))`,
-)
 @Check('permit_check', `((effective_to IS NULL) OR (effective_to >= effective_from))`)
 @Unique('permit_site_id_number_key', ['siteId', 'number'])
 @Entity('permit')
@@ -60,24 +45,6 @@ export class Permit {
 
   @Column({ type: 'smallint', name: 'report_due_days' })
   reportDueDays: number;
-
-  @Column({ type: 'varchar', name: 'non_detect_policy', length: 10 })
-  nonDetectPolicy: PermitView['nonDetectPolicy'];
-
-  @Column({ type: 'boolean', name: 'daily_max_applies_to_each_grab', default: false })
-  dailyMaxAppliesToEachGrab: boolean;
-
-  @Column({ type: 'numeric', name: 'mass_loading_factor', precision: 6, scale: 4, transformer: numeric })
-  massLoadingFactor: number;
-
-  @Column({ type: 'varchar', name: 'snc_window', length: 16 })
-  sncWindow: PermitView['sncWindow'];
-
-  @Column({ type: 'smallint', name: 'late_report_days', default: 45 })
-  lateReportDays: number;
-
-  @Column({ type: 'varchar', name: 'monitoring_counts', length: 14, default: 'sampling-days' })
-  monitoringCounts: PermitView['monitoringCounts'];
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;

@@ -1,38 +1,51 @@
 import { IsNull, type DataSource, type EntityManager } from 'typeorm';
-import type { Limit, Permit as PermitView } from '../../contracts/setup.js';
+import type { Limit, Permit as PermitContract, PermitSettingsValues } from '../../contracts/setup.js';
+import { settingsOn } from '../../domain/permit-settings.js';
+import { siteToday } from '../../kernel/site-today.js';
 import type { Target } from '../../kernel/trail/traced-writes.js';
 import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { Parameter } from '../parameters/parameter.entity.js';
 import { ReportingPeriod } from '../periods/reporting-period.entity.js';
 import { PermitLimit } from './permit-limit.entity.js';
+import { PermitSettings } from './permit-settings.entity.js';
 import { Permit } from './permit.entity.js';
 
 type Db = DataSource | EntityManager;
 export type LimitView = Limit;
 
-export const permitTarget = {
-  entityClass: Permit,
-  entity: 'permit',
-  view: (row: Permit): PermitView & { siteId: string } => ({
-    id: row.id,
-    siteId: row.siteId,
-    kind: row.kind,
-    number: row.number,
-    issuingAuthority: row.issuingAuthority,
-    authorityEmail: row.authorityEmail,
-    effectiveFrom: row.effectiveFrom,
-    effectiveTo: row.effectiveTo,
-    reportingFrequency: row.reportingFrequency,
-    reportDueDays: row.reportDueDays,
-    nonDetectPolicy: row.nonDetectPolicy,
-    dailyMaxAppliesToEachGrab: row.dailyMaxAppliesToEachGrab,
-    massLoadingFactor: row.massLoadingFactor as PermitView['massLoadingFactor'],
-    sncWindow: row.sncWindow,
-    lateReportDays: row.lateReportDays,
-    monitoringCounts: row.monitoringCounts,
-  }),
-  siteIdOf: (row: Permit) => row.siteId,
-} satisfies Target<Permit, unknown>;
+export type PermitView = PermitContract & { siteId: string };
+
+/** The permit with the settings in force on its site's today. */
+export async function permitView(db: Db, permit: Permit): Promise<PermitView> {
+  const versions = await settingsVersions(db, permit.id);
+  const current = settingsOn(versions, await siteToday(db, permit.siteId))!;
+  return {
+    id: permit.id,
+    siteId: permit.siteId,
+    kind: permit.kind,
+    number: permit.number,
+    issuingAuthority: permit.issuingAuthority,
+    authorityEmail: permit.authorityEmail,
+    effectiveFrom: permit.effectiveFrom,
+    effectiveTo: permit.effectiveTo,
+    reportingFrequency: permit.reportingFrequency,
+    reportDueDays: permit.reportDueDays,
+    ...settingsValues(current),
+    settingsFrom: current.appliesFrom,
+  };
+}
+
+export const settingsValues = (version: PermitSettings): PermitSettingsValues => ({
+  nonDetectPolicy: version.nonDetectPolicy,
+  dailyMaxAppliesToEachGrab: version.dailyMaxAppliesToEachGrab,
+  massLoadingFactor: version.massLoadingFactor as PermitSettingsValues['massLoadingFactor'],
+  sncWindow: version.sncWindow,
+  lateReportDays: version.lateReportDays,
+  monitoringCounts: version.monitoringCounts,
+});
+
+export const settingsVersions = (db: Db, permitId: string) =>
+  db.getRepository(PermitSettings).find({ where: { permitId }, order: { appliesFrom: 'ASC' } });
 
 /** A limit belongs to a permit; its trail entries carry the permit's site. */
 export const limitTarget = (siteId: string) =>
@@ -65,7 +78,7 @@ export async function findPermits(db: Db, siteIds: string[]) {
     .where('permit.siteId = ANY(:siteIds)', { siteIds })
     .orderBy('permit.effectiveFrom', 'DESC')
     .getMany();
-  return rows.map(permitTarget.view);
+  return Promise.all(rows.map((row) => permitView(db, row)));
 }
 
 export const findPermit = (db: Db, id: string) => db.getRepository(Permit).findOneBy({ id });

@@ -1,19 +1,23 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { DateTime } from 'luxon';
-import type {
-  CreateLimitRequest,
-  CreatePermitRequest,
-  EndLimitQuery,
-  UpdateLimitRequest,
-  UpdatePermitRequest,
+import {
+  permitSettingNames,
+  type CreateLimitRequest,
+  type CreatePermitRequest,
+  type EndLimitQuery,
+  type PermitSettingsValues,
+  type UpdateLimitRequest,
+  type UpdatePermitRequest,
 } from '../../contracts/setup.js';
+import { settingsOn } from '../../domain/permit-settings.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { uniquely } from '../../db/uniquely.js';
-import type { Permit } from './permit.entity.js';
+import { Permit } from './permit.entity.js';
+import { PermitSettings } from './permit-settings.entity.js';
 import { convert, isMassRate, units } from '../../domain/units.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
-import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
+import { createTraced, deleteTraced } from '../../kernel/trail/traced-writes.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { PermitLimit } from './permit-limit.entity.js';
 import { recheckResultsAtPoint } from '../lab/lab-flags.service.js';
@@ -29,8 +33,10 @@ import {
   findPermits,
   findPoint,
   limitTarget,
-  permitTarget,
+  permitView,
   runningPeriodStart,
+  settingsValues,
+  settingsVersions,
 } from './permits.repository.js';
 
 const duplicateLimit = 'This permit already has this statistic for this point and parameter';
@@ -45,28 +51,75 @@ export class PermitsService {
   }
 
   async get(user: CurrentUser, id: string) {
-    return permitTarget.view(await this.visiblePermit(user, id));
+    return permitView(this.dataSource, await this.visiblePermit(user, id));
   }
 
+  /** A permit and its first settings version, applying from the permit's start. */
   create(user: CurrentUser, request: CreatePermitRequest) {
     assertSiteAllowed(user, request.siteId);
+    const { settings, fields } = splitSettings(request);
     return uniquely(
       () =>
-        createTraced(this.dataSource, user, permitTarget, request, {
-          afterWrite: (manager, row) => ensurePeriods(manager, String(row.id)),
+        this.dataSource.transaction(async (manager) => {
+          const permit = await manager.save(Permit, manager.create(Permit, fields));
+          await manager.insert(PermitSettings, { ...settings, permitId: permit.id, appliesFrom: permit.effectiveFrom });
+          await ensurePeriods(manager, permit.id);
+          const after = await permitView(manager, permit);
+          await recordTrail(manager, user, { action: 'create', entity: 'permit', entityId: permit.id, siteId: permit.siteId, after });
+          return after;
         }),
       'number',
       'This site already has a permit with this number',
     );
   }
 
+  /**
+   * Changed settings are the next settings version, from the day given (by default the start of
+   * the running period); a change from the version's own first day corrects that version.
+   * PostgreSQL refuses either where a signed period used the version (409 naming it).
+   */
   async update(user: CurrentUser, id: string, request: UpdatePermitRequest) {
-    await this.visiblePermit(user, id);
-    const updated = await updateTraced(this.dataSource, user, permitTarget, id, request, async (_m, before) => {
-      const from = request.effectiveFrom ?? before.effectiveFrom;
-      const to = request.effectiveTo === undefined ? before.effectiveTo : request.effectiveTo;
-      if (to && from && to < from) throw invalid({ effectiveTo: 'Ends before it starts' });
-    });
+    const permit = await this.visiblePermit(user, id);
+    const { settingsFrom, ...changes } = request;
+    const { settings, fields } = splitSettings(changes);
+    const from = settingsFrom ?? (await runningPeriodStart(this.dataSource, permit));
+    const updated = await uniquely(
+      () =>
+        this.dataSource.transaction(async (manager) => {
+          const before = await permitView(manager, permit);
+          const effectiveFrom = fields.effectiveFrom ?? before.effectiveFrom;
+          const effectiveTo = fields.effectiveTo === undefined ? before.effectiveTo : fields.effectiveTo;
+          if (effectiveTo && effectiveTo < effectiveFrom) throw invalid({ effectiveTo: 'Ends before it starts' });
+          if (Object.keys(fields).length > 0) await manager.update(Permit, { id }, fields);
+          const versions = await settingsVersions(manager, id);
+          const version = settingsOn(versions, from)!;
+          const changed = Object.entries(settings).filter(
+            ([key, value]) => value !== undefined && value !== (settingsValues(version) as Record<string, unknown>)[key],
+          );
+          if (changed.length > 0) {
+            const next = Object.fromEntries(changed);
+            if (from <= version.appliesFrom) {
+              await manager.update(PermitSettings, { id: version.id }, next);
+            } else {
+              await manager.update(PermitSettings, { id: version.id }, { appliesTo: dayBefore(from) });
+              const { id: _id, createdAt: _c, permit: _p, ...kept } = version;
+              await manager.insert(PermitSettings, { ...kept, ...next, appliesFrom: from, appliesTo: version.appliesTo });
+            }
+          }
+          const after = await permitView(manager, (await manager.findOneByOrFail(Permit, { id }))!);
+          await recordTrail(manager, user, {
+            action: 'update',
+            entity: 'permit',
+            entityId: id,
+            siteId: permit.siteId,
+            before,
+            after: changed.length > 0 ? { ...after, settingsChangedFrom: from } : after,
+          });
+          return after;
+        }),
+      'number',
+      'This site already has a permit with this number',
+    );
     // New dates or a new frequency may add periods; existing ones stay as they were reported.
     await ensurePeriods(this.dataSource, id);
     return updated;
@@ -77,8 +130,9 @@ export class PermitsService {
    * judged anything is a kept record (40 CFR 403.12(o): at least 3 years) and ends instead.
    */
   async remove(user: CurrentUser, id: string): Promise<void> {
-    await this.visiblePermit(user, id);
-    await deleteTraced(this.dataSource, user, permitTarget, id, async (manager, before) => {
+    const permit = await this.visiblePermit(user, id);
+    await this.dataSource.transaction(async (manager) => {
+      const before = await permitView(manager, permit);
       const kept = await countKeptPeriods(manager, id);
       if (kept > 0) {
         throw conflict(
@@ -91,6 +145,9 @@ export class PermitsService {
         throw conflict(`Permit ${before.number} still has limits. End the permit with its effective-to date, or remove its limits first.`);
       }
       await deleteUncompiledPeriods(manager, id);
+      await manager.delete(PermitSettings, { permitId: id });
+      await manager.delete(Permit, { id });
+      await recordTrail(manager, user, { action: 'delete', entity: 'permit', entityId: id, siteId: permit.siteId, before });
     });
   }
 
@@ -214,6 +271,17 @@ export class PermitsService {
     assertSiteVisible(user, permit?.siteId, 'Permit');
     return permit!;
   }
+}
+
+/** A permit request's settings (versioned) apart from the permit's own fields. */
+function splitSettings<R extends Partial<PermitSettingsValues>>(request: R) {
+  const settings: Partial<PermitSettingsValues> = {};
+  const fields: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(request)) {
+    if ((permitSettingNames as string[]).includes(key)) Object.assign(settings, { [key]: value });
+    else fields[key] = value;
+  }
+  return { settings, fields: fields as Omit<R, keyof PermitSettingsValues> & Partial<Permit> };
 }
 
 const dayBefore = (day: string) => DateTime.fromISO(day, { zone: 'UTC' }).minus({ days: 1 }).toISODate()!;

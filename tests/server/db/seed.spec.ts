@@ -47,11 +47,14 @@ describe('the demo seed never touches real data', () => {
       [companyId],
     );
     const [{ id: permitId }] = await dataSource.query(
-      `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days,
-         non_detect_policy, mass_loading_factor, snc_window)
-       VALUES ($1, 'pretreatment', 'FX-1', 'Fixture authority', '2024-01-01', 'semiannual', 30, 'zero', 8.34, 'calendar-halves')
+      `INSERT INTO permit (site_id, kind, number, issuing_authority, effective_from, reporting_frequency, report_due_days)
+       VALUES ($1, 'pretreatment', 'FX-1', 'Fixture authority', '2024-01-01', 'semiannual', 30)
        RETURNING id`,
       [otherSiteId],
+    );
+    await dataSource.query(
+      `INSERT INTO permit_settings (permit_id, applies_from, non_detect_policy, mass_loading_factor, snc_window) VALUES ($1, '2024-01-01', 'zero', 8.34, 'calendar-halves')`,
+      [permitId],
     );
     await dataSource.query(
       `INSERT INTO reporting_period (permit_id, starts_on, ends_on, due_on) VALUES ($1, '2024-01-01', '2024-06-30', '2024-07-30')`,
