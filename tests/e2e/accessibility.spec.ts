@@ -19,6 +19,10 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
       `SELECT rp.id FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id
         WHERE s.name = 'Orrin Flats Finishing' AND rp.starts_on <= current_date ORDER BY rp.starts_on DESC LIMIT 1`,
     );
+    const [finished] = await stack.dataSource.query(
+      `SELECT rp.id FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id
+        WHERE s.name = 'Orrin Flats Finishing' AND rp.ends_on < current_date ORDER BY rp.starts_on DESC LIMIT 1`,
+    );
     const [certificate] = await stack.dataSource.query(
       `SELECT c.id FROM lab_certificate c JOIN site s ON s.id = c.site_id WHERE s.name = 'Orrin Flats Finishing' ORDER BY c.received_on DESC LIMIT 1`,
     );
@@ -39,9 +43,21 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
       { name: 'shipments', path: '/shipments', as: coordinator },
       { name: 'periods', path: '/periods', as: coordinator },
       { name: 'period', path: `/periods/${period.id}`, as: coordinator },
+      {
+        name: 'period-sign',
+        path: `/periods/${finished.id}`,
+        as: coordinator,
+        click: { button: '[data-test="open-sign"]', shows: '[data-test="statement"]' },
+      },
       { name: 'flow-readings', path: '/periods/flow-readings', as: coordinator },
       { name: 'follow-ups', path: '/follow-ups', as: coordinator },
       { name: 'setup', path: '/setup', as: coordinator },
+      {
+        name: 'limit-version',
+        path: '/setup',
+        as: coordinator,
+        click: { button: '[data-test="change-limit"]', shows: '[data-test="version-day"]' },
+      },
       {
         name: 'trail',
         path: '/trail',
