@@ -24,6 +24,7 @@ import { parametersRoutes } from './features/parameters/parameters.routes.js';
 import { permitsRoutes } from './features/permits/permits.routes.js';
 import { sitesRoutes } from './features/sites/sites.routes.js';
 import { trailRoutes } from './features/trail/trail.routes.js';
+import { importRunsRoutes } from './features/imports/imports.routes.js';
 import { meRoutes } from './features/users/me.routes.js';
 import { usersRoutes } from './features/users/users.routes.js';
 import { apiNotFound, errorHandler } from './middleware/error-handler.js';
@@ -84,6 +85,7 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   mountRouter(api, '/periods', periodsRoutes(dataSource));
   mountRouter(api, '/follow-ups', followUpsRoutes(dataSource));
   mountRouter(api, '/trail', trailRoutes(dataSource));
+  mountRouter(api, '/import-runs', importRunsRoutes(dataSource));
   mountRouter(api, '/openapi.json', openApiRoutes(api));
   api.use(apiNotFound);
   app.use('/api', api);

@@ -19,6 +19,7 @@ import { ShipmentFile } from '../features/shipments/shipment-file.entity.js';
 import { Shipment } from '../features/shipments/shipment.entity.js';
 import { UpkeepCheck } from '../features/upkeep/upkeep-check.entity.js';
 import { StoredFile } from '../kernel/files/stored-file.entity.js';
+import { ImportRun } from '../kernel/imports/import-run.entity.js';
 import { UserSite } from '../kernel/people/user-site.entity.js';
 import { User } from '../kernel/people/user.entity.js';
 import { Company } from '../kernel/sites/company.entity.js';
@@ -55,4 +56,5 @@ export const entities = [
   ReportingPeriod,
   PeriodAmendment,
   PeriodSignature,
+  ImportRun,
 ];

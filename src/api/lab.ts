@@ -20,6 +20,6 @@ export const labApi = {
   attachFile: (id: string, file: File, onProgress?: (fraction: number) => void) =>
     upload<CertificateDetail>('PUT', `/lab-certificates/${id}/file`, { file }, onProgress),
   templateUrl: (siteId: string, format: 'xlsx' | 'csv') => `/api/lab-certificates/import/template?siteId=${siteId}&format=${format}`,
-  importFile: (siteId: string, file: File, commit: boolean, onProgress?: (fraction: number) => void) =>
-    upload<ImportReport>('POST', '/lab-certificates/import', { siteId, commit: String(commit), file }, onProgress),
+  importFile: (siteId: string, file: File, commit: boolean, onProgress?: (fraction: number) => void, runId?: string) =>
+    upload<ImportReport>('POST', '/lab-certificates/import', { siteId, commit: String(commit), runId, file }, onProgress),
 };

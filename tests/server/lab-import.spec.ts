@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import ExcelJS from 'exceljs';
 import JSZip from 'jszip';
 import request from 'supertest';
@@ -5,6 +6,8 @@ import { MAX_IMPORT_ROWS } from '../../server/kernel/spreadsheets/spreadsheet-ro
 import { MAX_WORKBOOK_UNPACKED_BYTES } from '../../server/kernel/spreadsheets/workbook-guard.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { importColumns } from '../../server/contracts/lab-import.js';
+import { LabCertificatesService } from '../../server/features/lab/lab-certificates.service.js';
+import { LabImportService } from '../../server/features/lab/lab-import.service.js';
 import { demoIds } from '../fixtures/lab.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
 
@@ -59,6 +62,65 @@ describe('lab results import', () => {
     coordinator = await t.sessionFor('coordinator@decant.test');
   });
   afterAll(() => t.close());
+
+  it('runs as an import run whose progress its owner can read, and stops at its time limit writing nothing', async () => {
+    const runId = randomUUID();
+    // Before the demo permit's time, so the demo's verdicts other tests read stay as they are.
+    const early = { received_on: '2024-05-03', collected_at: '2024-05-02 09:30', analysed_at: '2024-05-04 10:00' };
+    const csv = Buffer.from(
+      [
+        header,
+        csvRow('RUN-1', early),
+        csvRow('RUN-1', { ...early, collected_at: '2024-05-02 14:00', value: '12.0' }),
+        csvRow('RUN-2', early),
+      ].join('\n'),
+    );
+    await request(t.app)
+      .post('/api/lab-certificates/import')
+      .set('cookie', coordinator)
+      .field('siteId', ids.north)
+      .field('commit', 'true')
+      .field('runId', runId)
+      .attach('file', csv, 'run.csv')
+      .expect(201);
+    const run = await request(t.app).get(`/api/import-runs/${runId}`).set('cookie', coordinator).expect(200);
+    expect(run.body).toMatchObject({ status: 'done', rowsDone: 3, rowsTotal: 3, fileName: 'run.csv', message: null });
+    expect(run.body.finishedAt).not.toBeNull();
+    // Someone else's run is not theirs to read; the same id cannot start a second run.
+    await request(t.app)
+      .get(`/api/import-runs/${runId}`)
+      .set('cookie', await t.sessionFor('auditor@decant.test'))
+      .expect(404);
+    await request(t.app)
+      .post('/api/lab-certificates/import')
+      .set('cookie', coordinator)
+      .field('siteId', ids.north)
+      .field('runId', runId)
+      .attach('file', csv, 'run.csv')
+      .expect(409);
+
+    // Past its time limit, the run stops, the transaction rolls back, and the run says why.
+    const before = await counts();
+    const [user] = await t.dataSource.query(`SELECT id, email, name, role FROM app_user WHERE email = 'coordinator@decant.test'`);
+    const imports = new LabImportService(t.dataSource, new LabCertificatesService(t.dataSource));
+    const late = randomUUID();
+    const stopped = imports.import(
+      { ...user, siteIds: [ids.north] },
+      { siteId: ids.north, commit: 'true', runId: late },
+      {
+        buffer: Buffer.from([header, csvRow('LATE-1', early)].join('\n')),
+        originalname: 'late.csv',
+        mimetype: 'text/csv',
+        size: 100,
+      } as Express.Multer.File,
+      1,
+    );
+    await expect(stopped).rejects.toMatchObject({ status: 422, code: 'import_timed_out' });
+    expect(await counts()).toEqual(before);
+    const failed = await request(t.app).get(`/api/import-runs/${late}`).set('cookie', coordinator).expect(200);
+    expect(failed.body.status).toBe('failed');
+    expect(failed.body.message).toMatch(/took longer than/);
+  });
 
   it('dry-runs without writing, then commits every row of a clean file', async () => {
     const file = Buffer.from(

@@ -10,6 +10,7 @@ import { FileOwners1796234400000 } from './1796234400000-FileOwners.js';
 import { DocumentKeys1796238000000 } from './1796238000000-DocumentKeys.js';
 import { PeriodSignOff1796241600000 } from './1796241600000-PeriodSignOff.js';
 import { PermitSettingsVersions1796245200000 } from './1796245200000-PermitSettingsVersions.js';
+import { ImportRuns1796248800000 } from './1796248800000-ImportRuns.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -25,4 +26,5 @@ export const migrations = [
   DocumentKeys1796238000000,
   PeriodSignOff1796241600000,
   PermitSettingsVersions1796245200000,
+  ImportRuns1796248800000,
 ];

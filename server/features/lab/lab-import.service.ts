@@ -5,6 +5,7 @@ import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed } from '../../auth/site-access.js';
 import type { Download } from '../../http/download.js';
 import { rowErrors, spreadsheetRows, xlsxType } from '../../kernel/spreadsheets/spreadsheet-rows.js';
+import { ImportRunTracker } from '../../kernel/imports/import-runs.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { planImport } from './import-plan.js';
 import { importTemplate } from './import-template.js';
@@ -29,14 +30,50 @@ export class LabImportService {
     };
   }
 
+  /**
+   * Runs as an import run (`runId`): progress through reading, checking and writing is visible
+   * at /api/import-runs/:id while the request is open, and past the time limit the run stops
+   * with nothing written.
+   */
   async import(
     user: CurrentUser,
-    { siteId, commit }: SpreadsheetImportFields,
+    { siteId, commit, runId }: SpreadsheetImportFields,
     file: Express.Multer.File | undefined,
+    limitMs?: number,
   ): Promise<ImportReport> {
     assertSiteAllowed(user, siteId);
+    const run = await ImportRunTracker.start(
+      this.dataSource,
+      {
+        id: runId,
+        siteId,
+        userId: user.id,
+        kind: commit === 'true' ? 'lab-results' : 'lab-results-check',
+        fileName: file?.originalname ?? '',
+      },
+      limitMs,
+    );
+    return run.run(() => this.importAs(run, user, { siteId, commit }, file));
+  }
+
+  private async importAs(
+    run: ImportRunTracker,
+    user: CurrentUser,
+    { siteId, commit }: Pick<SpreadsheetImportFields, 'siteId' | 'commit'>,
+    file: Express.Multer.File | undefined,
+  ): Promise<ImportReport> {
     const rows = await spreadsheetRows(file);
-    const plan = await planImport(rows, await importLookups(this.dataSource, siteId));
+    let read = 0;
+    // Rows are read as a stream: the run counts them as they come, checking the time as it goes.
+    const counted = (async function* () {
+      for await (const row of rows) {
+        read += 1;
+        await run.progress('reading', read, 0);
+        yield row;
+      }
+    })();
+    const plan = await planImport(counted, await importLookups(this.dataSource, siteId));
+    await run.progress('checking', read, read, true);
     const report: ImportReport = {
       committed: false,
       rows: plan.rows,
@@ -48,9 +85,14 @@ export class LabImportService {
     if (commit !== 'true') return report;
     if (plan.errors.length > 0) throw rowErrors(report);
     // All certificates or none: one transaction, one trail entry per certificate.
+    const resultCount = report.results;
+    let written = 0;
     await this.dataSource.transaction(async (manager) => {
+      await run.limitStatements(manager);
       const limits = limitsInForce(manager);
       for (const request of plan.requests) {
+        await run.progress('writing', written, resultCount);
+        written += request.samples.reduce((m, s) => m + s.results.length, 0);
         const id = await this.certificates.insertCertificate(manager, user, request, null, limits);
         await recordTrail(manager, user, {
           action: 'import',
