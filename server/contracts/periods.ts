@@ -112,6 +112,7 @@ export const Signature = z.object({
   sha256: doc(z.string(), 'SHA-256 of the signed snapshot (summary, inputs, signer, statement, trail head)'),
   trailHead: doc(z.object({ seq: z.string(), hash: z.string() }), "The trail chain's head when the period was signed"),
   amendmentReason: doc(z.string().nullable(), 'For revision 2 and later: why the period was amended'),
+  packSha256: doc(z.string().nullable(), 'SHA-256 of the period pack (PDF) stored with the signature'),
 });
 export type Signature = z.infer<typeof Signature>;
 

@@ -11,6 +11,7 @@ import { DocumentKeys1796238000000 } from './1796238000000-DocumentKeys.js';
 import { PeriodSignOff1796241600000 } from './1796241600000-PeriodSignOff.js';
 import { PermitSettingsVersions1796245200000 } from './1796245200000-PermitSettingsVersions.js';
 import { ImportRuns1796248800000 } from './1796248800000-ImportRuns.js';
+import { PeriodPacks1796252400000 } from './1796252400000-PeriodPacks.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -27,4 +28,5 @@ export const migrations = [
   PeriodSignOff1796241600000,
   PermitSettingsVersions1796245200000,
   ImportRuns1796248800000,
+  PeriodPacks1796252400000,
 ];

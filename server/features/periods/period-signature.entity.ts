@@ -75,4 +75,11 @@ export class PeriodSignature {
 
   @Column({ type: 'char', length: 64 })
   sha256: string;
+
+  /** The period pack (PDF) as signed; read only when downloaded. */
+  @Column({ type: 'bytea', name: 'pack_pdf', nullable: true, select: false })
+  packPdf?: Buffer | null;
+
+  @Column({ type: 'char', name: 'pack_sha256', length: 64, nullable: true })
+  packSha256: string | null;
 }

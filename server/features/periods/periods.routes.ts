@@ -13,6 +13,7 @@ import {
   SubmissionRequest,
 } from '../../contracts/periods.js';
 import { z } from 'zod';
+import { sendDownload } from '../../http/download.js';
 import { endpoint } from '../../http/endpoint.js';
 import { PeriodsService } from './periods.service.js';
 
@@ -70,6 +71,19 @@ export function periodsRoutes(dataSource: DataSource): Router {
     '/:id/revisions/:revision',
     ...endpoint({ action: 'periods.read', params: RevisionParams, response: PeriodSummary }, ({ user, params }) =>
       periods.revision(user, params.id, params.revision),
+    ),
+  );
+
+  router.get(
+    '/:id/pack.pdf',
+    ...endpoint({ action: 'periods.read', params: IdParams }, async ({ user, params, res }) =>
+      sendDownload(res, await periods.packPdf(user, params.id)),
+    ),
+  );
+  router.get(
+    '/:id/revisions/:revision/pack.pdf',
+    ...endpoint({ action: 'periods.read', params: RevisionParams }, async ({ user, params, res }) =>
+      sendDownload(res, await periods.packPdf(user, params.id, params.revision)),
     ),
   );
 

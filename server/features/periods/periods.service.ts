@@ -13,6 +13,9 @@ import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
 import type { PeriodRecord } from './period-input.repository.js';
 import { exceedanceSourceId, missedMonitoringSourceId, stableId } from './finding-ids.js';
+import type { Download } from '../../http/download.js';
+import { packFileName, periodPackDownload } from '../reports/period-pack.service.js';
+import { storedPack } from './sign-off.repository.js';
 import { PeriodSignOffService } from './sign-off.service.js';
 import { summarise } from './summarise.js';
 import {
@@ -202,6 +205,19 @@ export class PeriodsService {
 
   async revision(user: CurrentUser, id: string, revision: number): Promise<PeriodSummary> {
     return this.signOff.revision(await this.visiblePeriod(user, id), revision);
+  }
+
+  /**
+   * The period pack as PDF: for a signed period (or an earlier revision) the file kept with its
+   * signature, the same bytes every time; for a draft, built now and marked DRAFT on every page.
+   */
+  async packPdf(user: CurrentUser, id: string, revision?: number): Promise<Download> {
+    const period = await this.visiblePeriod(user, id);
+    const summary = revision ? await this.signOff.revision(period, revision) : await this.signOff.view(period);
+    const signed = summary.status === 'signed' && summary.signature;
+    const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision) : null;
+    if (kept) return { bytes: kept, mediaType: 'application/pdf', fileName: packFileName(period, summary, 'pdf') };
+    return periodPackDownload(this.dataSource, period, summary);
   }
 
   /** Records when the periodic report went to the authority (signing and packs come later). */

@@ -146,3 +146,14 @@ export async function storedCompile(db: Db, periodId: string): Promise<{ summary
   const row = await db.getRepository(ReportingPeriod).findOne({ where: { id: periodId }, select: { summary: true, compiledAt: true } });
   return { summary: (row?.summary as PeriodSummary | null) ?? null, compiledAt: row?.compiledAt ?? null };
 }
+
+/** The pack kept with a signed revision. */
+export async function storedPack(db: Db, periodId: string, revision: number): Promise<Buffer | null> {
+  const row = await db
+    .getRepository(PeriodSignature)
+    .createQueryBuilder('s')
+    .addSelect('s.packPdf')
+    .where('s.periodId = :periodId AND s.revision = :revision', { periodId, revision })
+    .getOne();
+  return row?.packPdf ?? null;
+}

@@ -32,6 +32,7 @@ import {
   storedCompile,
   trailHead,
 } from './sign-off.repository.js';
+import { buildPeriodPackPdf } from '../reports/period-pack.service.js';
 import { summarise } from './summarise.js';
 
 const sha256 = (value: unknown) => createHash('sha256').update(stableStringify(value)).digest('hex');
@@ -57,6 +58,7 @@ function signatureView(signature: PeriodSignature): Signature {
     sha256: signature.sha256,
     trailHead: { seq: String(signature.trailHeadSeq), hash: signature.trailHeadHash },
     amendmentReason: signature.amendment?.reason ?? null,
+    packSha256: signature.packSha256,
   };
 }
 
@@ -195,7 +197,26 @@ export async function signWithin(manager: EntityManager, user: Signatory, period
     ...(await trailHead(manager).then((head) => ({ trailHeadSeq: head.seq, trailHeadHash: head.hash }))),
   };
   const sha = sha256({ ...signature, signedAt: signature.signedAt.toISOString(), signerEmail: user.email });
-  await saveSignature(manager, { ...signature, sha256: sha });
+  // The pack is built now, as signed, and kept with the signature: the same file for good.
+  const packPdf = await buildPeriodPackPdf(manager, period, {
+    ...shown,
+    status: 'signed',
+    revision: signature.revision,
+    amendment: null,
+    signature: {
+      revision: signature.revision,
+      signerName: signature.signerName,
+      signerTitle: signature.signerTitle,
+      signedAt: signature.signedAt.toISOString(),
+      statementSection: signature.statementSection,
+      sha256: sha,
+      trailHead: { seq: String(signature.trailHeadSeq), hash: signature.trailHeadHash },
+      amendmentReason: amendment?.reason ?? null,
+      packSha256: null,
+    },
+  });
+  const packSha256 = createHash('sha256').update(packPdf).digest('hex');
+  await saveSignature(manager, { ...signature, sha256: sha, packPdf, packSha256 });
   await recordTrail(manager, user, {
     action: 'sign',
     entity: 'reporting-period',

@@ -1,0 +1,166 @@
+import { createHash } from 'node:crypto';
+import { PDFParse } from 'pdf-parse';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { certificationStatements } from '../../server/domain/period/certification.js';
+import { demoIds } from '../fixtures/lab.js';
+import { startTestApp, type TestApp } from '../helpers/test-app.js';
+
+const binary = (res: NodeJS.ReadableStream, done: (error: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+};
+
+async function textOf(pdf: Buffer): Promise<string> {
+  const parser = new PDFParse({ data: new Uint8Array(pdf) });
+  try {
+    return (await parser.getText()).text.replace(/\s+/g, ' ');
+  } finally {
+    await parser.destroy();
+  }
+}
+
+describe('the period pack (PDF)', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  let coordinator: string;
+  let periodId: string;
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+    coordinator = await t.sessionFor('coordinator@decant.test');
+    const point = await request(t.app)
+      .post(`/api/sites/${ids.north}/discharge-points`)
+      .set('cookie', coordinator)
+      .send({ code: 'OF-PK', name: 'Pack outfall', receiving: 'sewer' })
+      .expect(201);
+    const permit = await request(t.app)
+      .post('/api/permits')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        kind: 'pretreatment',
+        number: 'PK-0001',
+        issuingAuthority: 'Basin Water Authority',
+        effectiveFrom: '2026-03-01',
+        reportingFrequency: 'monthly',
+        reportDueDays: 28,
+        nonDetectPolicy: 'zero',
+      })
+      .expect(201);
+    for (const [statistic, value] of [
+      ['daily-maximum', 20],
+      ['monthly-average', 10],
+    ] as const) {
+      await request(t.app)
+        .post(`/api/permits/${permit.body.id}/limits`)
+        .set('cookie', coordinator)
+        .send({
+          dischargePointId: point.body.id,
+          parameterId: ids.hem,
+          statistic,
+          value,
+          unit: 'mg/L',
+          frequencyCount: 1,
+          frequencyPer: 'month',
+          sampleType: 'grab',
+        })
+        .expect(201);
+    }
+    const sample = (collectedAt: string, value: string) => ({
+      dischargePointId: point.body.id,
+      collectedAt,
+      collectedBy: 'PK',
+      sampleType: 'grab',
+      preservationConfirmed: true,
+      temperatureOnReceiptC: 4,
+      results: [
+        { parameterId: ids.hem, method: '1664B', qualifier: null, value, mdl: 1.4, ml: 5, unit: 'mg/L', analysedAt: '2026-03-20T10:00' },
+      ],
+    });
+    await request(t.app)
+      .post('/api/lab-certificates')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        labName: 'Pack Lab',
+        labAccreditationNumber: 'PK',
+        reportNumber: 'PK-REPORT-1',
+        receivedOn: '2026-03-19',
+        samples: [sample('2026-03-10T09:00', '24'), sample('2026-03-17T09:00', '3.2')],
+      })
+      .expect(201);
+    const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
+    periodId = periods.body.items.find((p: { startsOn: string }) => p.startsOn === '2026-03-01').id;
+  });
+  afterAll(() => t.close());
+
+  const download = (path: string, cookie = coordinator) =>
+    request(t.app)
+      .get(path)
+      .set('cookie', cookie)
+      .buffer(true)
+      .parse(binary as never);
+
+  it('prints a draft marked as such on every page, with its facility block and every limit row', async () => {
+    const draft = await download(`/api/periods/${periodId}/pack.pdf`).expect(200).expect('content-type', 'application/pdf');
+    expect(draft.header['content-disposition']).toMatch(/decant-PK-0001-2026-03-01-2026-03-31-draft\.pdf/);
+    const text = await textOf(draft.body);
+    expect(text).toContain('Harlow Vale Precision Parts');
+    expect(text).toContain('Tamsin Creek Works');
+    expect(text).toContain('PK-0001');
+    expect(text).toContain('Basin Water Authority');
+    expect(text).toContain('OF-PK — Pack outfall');
+    expect(text).toContain('DRAFT');
+    expect(text).toContain('Not signed');
+    // Daily maximum 24.0 over 20; monthly average of 24.0 and <ML (zero) = 12.0 over 10.
+    expect(text).toMatch(/Daily maximum 20 mg\/L 24\.0 mg\/L 2 \/ 1 Over the limit/);
+    expect(text).toMatch(/Monthly average 10 mg\/L 12\.0 mg\/L 2 \/ 1 Over the limit/);
+    // EPA Method 1664 §12.3.1: the 3.2 mg/L result is reported as <5.0.
+    expect(text).toContain('<5.0 mg/L');
+    expect(text).toContain('PK-REPORT-1');
+  });
+
+  it('keeps the signed pack: the same bytes on every download and after the live records move', async () => {
+    const { body: compiled } = await request(t.app).post(`/api/periods/${periodId}/compile`).set('cookie', coordinator).expect(200);
+    const signed = await request(t.app)
+      .post(`/api/periods/${periodId}/sign`)
+      .set('cookie', coordinator)
+      .send({
+        compiledAt: compiled.compiledAt,
+        statementAccepted: true,
+        acknowledged: true,
+        signerName: 'Priya Raman',
+        signerTitle: 'EHS coordinator',
+      })
+      .expect(200);
+    const first = await download(`/api/periods/${periodId}/pack.pdf`).expect(200);
+    expect(createHash('sha256').update(first.body).digest('hex')).toBe(signed.body.signature.packSha256);
+    const text = await textOf(first.body);
+    expect(text).not.toContain('DRAFT');
+    expect(text).toContain('Signed by Priya Raman');
+    expect(text).toContain(certificationStatements.pretreatment.text.slice(0, 120));
+    expect(text).toContain('40 CFR 403.6(a)(2)(ii), as 40 CFR 403.12(l) requires');
+    expect(text).toContain(signed.body.signature.sha256);
+
+    // Unrelated live changes: a follow-up of the period closed, oil logged at the site.
+    const [followUp] = await t.dataSource.query(
+      `SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' AND title LIKE '%OF-PK%' LIMIT 1`,
+      [ids.north],
+    );
+    if (followUp) {
+      await request(t.app).post(`/api/follow-ups/${followUp.id}/close`).set('cookie', coordinator).send({ note: 'Called the authority' });
+    }
+    const again = await download(`/api/periods/${periodId}/pack.pdf`).expect(200);
+    expect(Buffer.compare(again.body, first.body)).toBe(0);
+    const revision = await download(`/api/periods/${periodId}/revisions/1/pack.pdf`).expect(200);
+    expect(Buffer.compare(revision.body, first.body)).toBe(0);
+  });
+
+  it('answers 404 to someone who cannot see the period and 403 to a role without periods', async () => {
+    await download(`/api/periods/${periodId}/pack.pdf`, await t.sessionFor('coordinator.east@decant.test')).expect(404);
+    await download(`/api/periods/${periodId}/pack.pdf`, await t.sessionFor('operator@decant.test')).expect(403);
+  });
+});
