@@ -235,4 +235,6 @@ export interface PeriodListItem {
   today: string;
   compiledAt: string | null;
   revision: number;
+  /** The last signature: by whom, when, and the SHA-256 of the pack kept with it. */
+  lastSignature: { signerName: string; signedAt: string; packSha256: string | null } | null;
 }

@@ -85,13 +85,13 @@ export const CORRECTION_WINDOW_MS = 24 * 3600 * 1000;
 /** An author's own correction window for an oil-log entry; after it a reason is required. */
 export const OIL_LOG_AUTHOR_WINDOW_MS = CORRECTION_WINDOW_MS;
 
-/** Where a role lands after sign-in: the operator's work is the oil log, everyone else's the overview. */
-export type LandingPage = 'oil-log' | 'overview';
+/** Where a role lands after sign-in: the operator's work is the oil log, the auditor's the reports, everyone else's the overview. */
+export type LandingPage = 'oil-log' | 'overview' | 'reports';
 const landingPages: Record<Role, LandingPage> = {
   administrator: 'overview',
   coordinator: 'overview',
   operator: 'oil-log',
-  auditor: 'overview',
+  auditor: 'reports',
 };
 export function landingPageOf(role: Role | null | undefined): LandingPage {
   return role ? landingPages[role] : 'overview';

@@ -99,6 +99,12 @@ export const routes: RouteRecordRaw[] = [
         meta: { action: 'periods.read', title: 'Periods' },
       },
       {
+        path: 'reports',
+        name: 'reports',
+        component: () => import('@/views/ReportsView.vue'),
+        meta: { action: 'periods.read', title: 'Reports' },
+      },
+      {
         path: 'periods/flow-readings',
         name: 'flow-readings',
         component: () => import('@/views/FlowReadingsView.vue'),

@@ -50,6 +50,7 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
         click: { button: '[data-test="open-sign"]', shows: '[data-test="statement"]' },
       },
       { name: 'flow-readings', path: '/periods/flow-readings', as: coordinator },
+      { name: 'reports', path: '/reports', as: 'auditor@decant.test' },
       { name: 'follow-ups', path: '/follow-ups', as: coordinator },
       { name: 'setup', path: '/setup', as: coordinator },
       {

@@ -6,9 +6,9 @@ import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 // What each role's navigation shows, from the permission table's areas.
 const expectedAreas: Record<string, string[]> = {
   administrator: ['Overview', 'Trail', 'People and access'],
-  coordinator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Follow-ups', 'Trail', 'Set-up'],
+  coordinator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Reports', 'Follow-ups', 'Trail', 'Set-up'],
   operator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Follow-ups'],
-  auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Follow-ups', 'Trail'],
+  auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Reports', 'Follow-ups', 'Trail'],
 };
 
 describe('signing in with a browser', () => {

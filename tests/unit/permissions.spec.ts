@@ -84,9 +84,10 @@ describe('abilities decided by the table', () => {
   const fresh = { enteredBy: 'op-1', createdAt: '2026-06-02T02:00:00Z' };
   const old = { enteredBy: 'op-1', createdAt: '2026-05-31T12:00:00Z' };
 
-  it('lands the operator on the oil log and everyone else on the overview', () => {
+  it('lands the operator on the oil log, the auditor on the reports and everyone else on the overview', () => {
     expect(landingPageOf('operator')).toBe('oil-log');
-    for (const role of ['administrator', 'coordinator', 'auditor'] as const) expect(landingPageOf(role)).toBe('overview');
+    expect(landingPageOf('auditor')).toBe('reports');
+    for (const role of ['administrator', 'coordinator'] as const) expect(landingPageOf(role)).toBe('overview');
   });
 
   it('lets an operator correct only their own entry, and only in its first 24 hours', () => {

@@ -71,14 +71,25 @@ export async function findPeriod(db: Db, id: string): Promise<PeriodRecord | nul
 }
 
 export async function listPeriods(db: Db, siteIds: string[], permitId?: string): Promise<PeriodListItem[]> {
-  const rows: PeriodRow[] = await db.query(
-    `${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2) ORDER BY p.number, rp.starts_on DESC`,
+  // With each period its last signature, if any: who signed, when, and the pack's hash.
+  const rows: Array<PeriodRow & { signer_name: string | null; signed_at: Date | null; pack_sha256: string | null }> = await db.query(
+    `SELECT q.*, sg.signer_name, sg.signed_at, sg.pack_sha256
+       FROM (${periodSelect} WHERE p.site_id = ANY($1::uuid[]) AND ($2::uuid IS NULL OR rp.permit_id = $2)) q
+       LEFT JOIN LATERAL (SELECT signer_name, signed_at, pack_sha256 FROM period_signature
+                           WHERE period_id = q.id ORDER BY revision DESC LIMIT 1) sg ON true
+      ORDER BY q.permit_number, q.starts_on DESC`,
     [siteIds, permitId ?? null],
   );
   // The list answers what a period is, not how its permit computes (that is in the summary).
   return rows.map((row) => {
     const { settings: _settings, ...period } = record(row);
-    return { ...period, compiledAt: row.compiled_at?.toISOString() ?? null };
+    return {
+      ...period,
+      compiledAt: row.compiled_at?.toISOString() ?? null,
+      lastSignature: row.signed_at
+        ? { signerName: row.signer_name!, signedAt: row.signed_at.toISOString(), packSha256: row.pack_sha256 }
+        : null,
+    };
   });
 }
 
