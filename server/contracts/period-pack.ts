@@ -38,9 +38,12 @@ export interface PeriodPackInput {
     shippedOn: string;
     documentKind: string;
     documentNumber: string;
+    wasteDescription: string;
     quantityLitres: number;
     signedCopyReceivedOn: string | null;
   }>;
+  /** Daily flow readings at the permit's points, in their recorded unit. */
+  flows: Array<{ day: string; pointCode: string; value: number; unit: string }>;
   /** Follow-ups the period's exceedances and missed monitoring opened, and how each closed. */
   followUps: Array<{ title: string; dueAt: string; status: string; closedAt: string | null; closingNote: string | null }>;
   /** Site time; for a signed period, when it was signed, so its pack is the same file every time. */

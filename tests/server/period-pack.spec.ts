@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import ExcelJS from 'exceljs';
 import { PDFParse } from 'pdf-parse';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -157,6 +158,59 @@ describe('the period pack (PDF)', () => {
     expect(Buffer.compare(again.body, first.body)).toBe(0);
     const revision = await download(`/api/periods/${periodId}/revisions/1/pack.pdf`).expect(200);
     expect(Buffer.compare(revision.body, first.body)).toBe(0);
+  });
+
+  it('writes the workbook with numbers as numbers, days as dates, and record text that can never run as a formula', async () => {
+    await request(t.app)
+      .post('/api/shipments')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        shippedOn: '2026-03-12',
+        documentKind: 'used-oil-bill-of-lading',
+        documentNumber: 'BOL-PK-1',
+        transporterName: 'Test Hauler',
+        transporterEpaId: 'ILR000000001',
+        receiverName: 'Test Recycler',
+        receiverEpaId: 'ILD000000002',
+        wasteDescription: '=HYPERLINK("http://example.invalid","click")',
+        quantity: 100,
+        quantityUnit: 'gal',
+      })
+      .expect(201);
+    const response = await download(`/api/periods/${periodId}/pack.xlsx`).expect(200);
+    expect(response.header['content-type']).toContain('spreadsheetml');
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(response.body);
+    expect(workbook.worksheets.map((ws) => ws.name)).toEqual([
+      'Summary',
+      'Daily values',
+      'Results',
+      'Certificates',
+      'Flows',
+      'Shipments',
+      'Follow-ups',
+    ]);
+    const { body: summary } = await request(t.app).get(`/api/periods/${periodId}/summary`).set('cookie', coordinator).expect(200);
+    const rows = workbook.getWorksheet('Summary')!.getSheetValues().slice(2) as unknown[][];
+    expect(rows.map((row) => [row[1], row[3], row[6], row[8], row[12]])).toEqual(
+      summary.rows.map((row: { pointCode: string; statistic: string; limitValue: number; computedValue: number; exceeded: boolean }) => [
+        row.pointCode,
+        row.statistic,
+        row.limitValue,
+        row.computedValue,
+        row.exceeded ? 'Over the limit' : 'Within the limit',
+      ]),
+    );
+    expect(typeof rows[0]![6]).toBe('number');
+    expect(rows[0]![4]).toBeInstanceOf(Date);
+    expect(workbook.getWorksheet('Summary')!.views[0]).toMatchObject({ state: 'frozen', ySplit: 1 });
+    // A shipment's text starting with "=" arrives as text, never as a formula.
+    const shipments = workbook.getWorksheet('Shipments')!;
+    const cell = shipments.getRow(2).getCell(4);
+    expect(cell.type).toBe(ExcelJS.ValueType.String);
+    expect(cell.value).toBe('\'=HYPERLINK("http://example.invalid","click")');
+    workbook.eachSheet((ws) => ws.eachRow((row) => row.eachCell((c) => expect(c.type).not.toBe(ExcelJS.ValueType.Formula))));
   });
 
   it('answers 404 to someone who cannot see the period and 403 to a role without periods', async () => {

@@ -81,6 +81,12 @@ export function periodsRoutes(dataSource: DataSource): Router {
     ),
   );
   router.get(
+    '/:id/pack.xlsx',
+    ...endpoint({ action: 'periods.read', params: IdParams }, async ({ user, params, res }) =>
+      sendDownload(res, await periods.packXlsx(user, params.id)),
+    ),
+  );
+  router.get(
     '/:id/revisions/:revision/pack.pdf',
     ...endpoint({ action: 'periods.read', params: RevisionParams }, async ({ user, params, res }) =>
       sendDownload(res, await periods.packPdf(user, params.id, params.revision)),

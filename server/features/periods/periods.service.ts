@@ -14,7 +14,7 @@ import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
 import type { PeriodRecord } from './period-input.repository.js';
 import { exceedanceSourceId, missedMonitoringSourceId, stableId } from './finding-ids.js';
 import type { Download } from '../../http/download.js';
-import { packFileName, periodPackDownload } from '../reports/period-pack.service.js';
+import { packFileName, periodPackDownload, periodPackXlsxDownload } from '../reports/period-pack.service.js';
 import { storedPack } from './sign-off.repository.js';
 import { PeriodSignOffService } from './sign-off.service.js';
 import { summarise } from './summarise.js';
@@ -218,6 +218,13 @@ export class PeriodsService {
     const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision) : null;
     if (kept) return { bytes: kept, mediaType: 'application/pdf', fileName: packFileName(period, summary, 'pdf') };
     return periodPackDownload(this.dataSource, period, summary);
+  }
+
+  /** The period pack as a workbook: the signed snapshot's figures, or a draft's. */
+  async packXlsx(user: CurrentUser, id: string, revision?: number): Promise<Download> {
+    const period = await this.visiblePeriod(user, id);
+    const summary = revision ? await this.signOff.revision(period, revision) : await this.signOff.view(period);
+    return periodPackXlsxDownload(this.dataSource, period, summary);
   }
 
   /** Records when the periodic report went to the authority (signing and packs come later). */

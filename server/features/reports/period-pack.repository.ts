@@ -49,9 +49,14 @@ export async function loadPackInput(db: Db, period: PeriodRecord, summary: Perio
     [pointIds, period.startsOn, period.endsOn],
   );
   const shipments = await db.query(
-    `SELECT shipped_on::text, document_kind, document_number, quantity_litres, signed_copy_received_on::text
+    `SELECT shipped_on::text, document_kind, document_number, waste_description, quantity_litres, signed_copy_received_on::text
        FROM shipment WHERE site_id = $1 AND shipped_on BETWEEN $2 AND $3 ORDER BY shipped_on, document_number`,
     [period.siteId, period.startsOn, period.endsOn],
+  );
+  const flows = await db.query(
+    `SELECT f.day::text, d.code AS point_code, f.value, f.unit FROM flow_reading f JOIN discharge_point d ON d.id = f.discharge_point_id
+      WHERE f.discharge_point_id = ANY($1::uuid[]) AND f.day BETWEEN $2 AND $3 ORDER BY f.day, d.code`,
+    [pointIds, period.startsOn, period.endsOn],
   );
   const sources = summary.rows.flatMap((row) => [
     ...row.exceedances.map((e) => exceedanceSourceId(row, e.date)),
@@ -107,8 +112,15 @@ export async function loadPackInput(db: Db, period: PeriodRecord, summary: Perio
       shippedOn: s.shipped_on!,
       documentKind: s.document_kind!,
       documentNumber: s.document_number!,
+      wasteDescription: s.waste_description ?? '',
       quantityLitres: Number(s.quantity_litres),
       signedCopyReceivedOn: s.signed_copy_received_on,
+    })),
+    flows: flows.map((f: { day: string; point_code: string; value: string; unit: string }) => ({
+      day: f.day,
+      pointCode: f.point_code,
+      value: Number(f.value),
+      unit: f.unit,
     })),
     followUps: followUps.map((f: Record<string, string | null>) => ({
       title: f.title!,

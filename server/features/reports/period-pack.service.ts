@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { periodPackPdf } from '../../../reports/period-pack-pdf.js';
+import { periodPackXlsx } from '../../../reports/period-pack-xlsx.js';
 import type { PeriodSummary } from '../../contracts/periods.js';
 import type { Download } from '../../http/download.js';
 import type { PeriodRecord } from '../periods/period-input.repository.js';
@@ -25,5 +26,15 @@ export async function periodPackDownload(db: DataSource, period: PeriodRecord, s
     bytes: await buildPeriodPackPdf(db, period, summary),
     mediaType: 'application/pdf',
     fileName: packFileName(period, summary, 'pdf'),
+  };
+}
+
+/** The pack as a workbook, built on request from what the period page shows. */
+export async function periodPackXlsxDownload(db: DataSource, period: PeriodRecord, summary: PeriodSummary): Promise<Download> {
+  const at = summary.status === 'signed' && summary.signature ? new Date(summary.signature.signedAt) : new Date(summary.compiledAt);
+  return {
+    bytes: await periodPackXlsx(await loadPackInput(db, period, summary, at)),
+    mediaType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+    fileName: packFileName(period, summary, 'xlsx'),
   };
 }
