@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
 import ExcelJS from 'exceljs';
+import JSZip from 'jszip';
 import { PDFParse } from 'pdf-parse';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -213,8 +214,34 @@ describe('the period pack (PDF)', () => {
     workbook.eachSheet((ws) => ws.eachRow((row) => row.eachCell((c) => expect(c.type).not.toBe(ExcelJS.ValueType.Formula))));
   });
 
+  it('bundles the period’s evidence in one ZIP whose manifest holds the SHA-256 of every file in it', async () => {
+    const [demo] = await t.dataSource.query(
+      `SELECT rp.id FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id WHERE p.number = 'TCU-IU-0417' AND rp.starts_on = '2026-01-01'`,
+    );
+    const response = await download(`/api/periods/${demo.id}/evidence.zip`).expect(200).expect('content-type', 'application/zip');
+    const zip = await JSZip.loadAsync(response.body);
+    const manifest = (await zip.file('manifest.csv')!.async('string'))
+      .trim()
+      .split('\r\n')
+      .slice(1)
+      .map((line) => line.split(',').map((field) => field.replace(/^"|"$/g, '')));
+    const names = Object.keys(zip.files).filter((name) => !zip.files[name]!.dir && name !== 'manifest.csv');
+    expect(manifest.map(([name]) => name).sort()).toEqual(names.sort());
+    for (const [name, sha256, bytes] of manifest) {
+      const content = await zip.file(name!)!.async('nodebuffer');
+      expect(createHash('sha256').update(content).digest('hex'), name).toBe(sha256);
+      expect(content.length).toBe(Number(bytes));
+    }
+    expect(names).toContain('period-pack.pdf');
+    expect(names).toContain('period-pack.xlsx');
+    expect(names).toContain('trail.csv');
+    expect(names.filter((name) => name.startsWith('certificates/')).length).toBeGreaterThan(0);
+  });
+
   it('answers 404 to someone who cannot see the period and 403 to a role without periods', async () => {
     await download(`/api/periods/${periodId}/pack.pdf`, await t.sessionFor('coordinator.east@decant.test')).expect(404);
     await download(`/api/periods/${periodId}/pack.pdf`, await t.sessionFor('operator@decant.test')).expect(403);
+    await download(`/api/periods/${periodId}/evidence.zip`, await t.sessionFor('coordinator.east@decant.test')).expect(404);
+    await download(`/api/periods/${periodId}/pack.xlsx`, await t.sessionFor('operator@decant.test')).expect(403);
   });
 });

@@ -81,6 +81,10 @@ export function periodsRoutes(dataSource: DataSource): Router {
     ),
   );
   router.get(
+    '/:id/evidence.zip',
+    ...endpoint({ action: 'periods.read', params: IdParams }, ({ user, params, res }) => periods.bundle(user, params.id, res)),
+  );
+  router.get(
     '/:id/pack.xlsx',
     ...endpoint({ action: 'periods.read', params: IdParams }, async ({ user, params, res }) =>
       sendDownload(res, await periods.packXlsx(user, params.id)),

@@ -13,7 +13,9 @@ import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
 import type { PeriodRecord } from './period-input.repository.js';
 import { exceedanceSourceId, missedMonitoringSourceId, stableId } from './finding-ids.js';
+import type { Response } from 'express';
 import type { Download } from '../../http/download.js';
+import { streamEvidenceBundle } from '../reports/evidence-bundle.js';
 import { packFileName, periodPackDownload, periodPackXlsxDownload } from '../reports/period-pack.service.js';
 import { storedPack } from './sign-off.repository.js';
 import { PeriodSignOffService } from './sign-off.service.js';
@@ -218,6 +220,21 @@ export class PeriodsService {
     const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision) : null;
     if (kept) return { bytes: kept, mediaType: 'application/pdf', fileName: packFileName(period, summary, 'pdf') };
     return periodPackDownload(this.dataSource, period, summary);
+  }
+
+  /** Every file of the period with a manifest of their SHA-256, streamed as one ZIP. */
+  async bundle(user: CurrentUser, id: string, res: Response): Promise<void> {
+    const period = await this.visiblePeriod(user, id);
+    const summary = await this.signOff.view(period);
+    const pdf = (await this.packPdf(user, id)).bytes;
+    const xlsx = (await this.packXlsx(user, id)).bytes;
+    await streamEvidenceBundle(this.dataSource, res, {
+      period,
+      summary,
+      fileName: packFileName(period, summary, 'zip').replace(/^decant-/, 'decant-evidence-'),
+      pdf: Buffer.from(pdf),
+      xlsx: Buffer.from(xlsx),
+    });
   }
 
   /** The period pack as a workbook: the signed snapshot's figures, or a draft's. */
