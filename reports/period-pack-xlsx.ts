@@ -2,13 +2,7 @@ import ExcelJS from 'exceljs';
 import type { PeriodPackInput } from '../server/contracts/period-pack.js';
 import type { LimitRow } from '../server/contracts/periods.js';
 
-/**
- * Text a spreadsheet program could take for a formula or a command (= + - @, tab, carriage
- * return at the start) gets a leading apostrophe, so a record's text never runs as a formula.
- */
-export function neutralised(text: string): string {
-  return /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
-}
+import { neutralised } from '../server/contracts/csv.js';
 
 type Cell = string | number | Date | null;
 interface Column {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isoDate } from './fields.js';
 import { sortedPageQuery } from './paging.js';
 
 export const TrailEntryView = z.object({
@@ -11,12 +12,20 @@ export const TrailEntryView = z.object({
   siteId: z.string().nullable(),
   before: z.unknown().nullable(),
   after: z.unknown().nullable(),
+  actorName: z.string().nullable(),
+  amendmentId: z.string().nullable(),
 });
 export type TrailEntryView = z.infer<typeof TrailEntryView>;
 
 export const TrailQuery = sortedPageQuery(['occurredAt']).extend({
   entity: z.string().max(60).optional(),
   siteId: z.uuid().optional(),
+  /** From this day (UTC) on. */
+  from: isoDate.optional(),
+  /** Through this day (UTC). */
+  to: isoDate.optional(),
+  /** Part of the person's e-mail address or name. */
+  person: z.string().trim().max(120).optional(),
 });
 export type TrailQuery = z.infer<typeof TrailQuery>;
 

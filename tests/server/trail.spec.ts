@@ -35,6 +35,53 @@ describe('the trail', () => {
     expect(await t.count('trail_entry')).toBeGreaterThan(0);
   });
 
+  it('reads in words and exports the filtered trail as CSV, text neutralised so it never runs as a formula', async () => {
+    const coordinator = await t.sessionFor('coordinator@decant.test');
+    const [site] = await t.dataSource.query(`SELECT id FROM site WHERE name = 'Tamsin Creek Works'`);
+    const point = await request(t.app)
+      .post(`/api/sites/${site.id}/discharge-points`)
+      .set('cookie', coordinator)
+      .send({ code: 'TR-1', name: '=HYPERLINK("http://example.invalid")', receiving: 'sewer' })
+      .expect(201);
+    await request(t.app)
+      .patch(`/api/sites/${site.id}/discharge-points/${point.body.id}`)
+      .set('cookie', coordinator)
+      .send({ name: 'Trail outfall' })
+      .expect(200);
+    const today = new Date().toISOString().slice(0, 10);
+    const listed = await request(t.app)
+      .get(`/api/trail?entity=discharge-point&person=Priya&from=${today}&siteId=${site.id}`)
+      .set('cookie', coordinator)
+      .expect(200);
+    expect(listed.body.items.length).toBeGreaterThanOrEqual(2);
+    expect(
+      listed.body.items.every(
+        (e: { entity: string; actorName: string }) => e.entity === 'discharge-point' && e.actorName === 'Priya Raman',
+      ),
+    ).toBe(true);
+    const csv = await request(t.app)
+      .get(`/api/trail/export.csv?entity=discharge-point&from=${today}&siteId=${site.id}`)
+      .set('cookie', coordinator)
+      .expect(200)
+      .expect('content-type', /text\/csv/);
+    const lines = csv.text
+      .replace(/^\ufeff/, '')
+      .trim()
+      .split('\r\n');
+    expect(lines[0]).toBe('"when (site time)","who","action","record kind","record","changes","reason","amendment","chain seq","hash"');
+    const changed = lines.find((line) => line.includes('"Changed"') && line.includes('TR-1'))!;
+    expect(changed).toContain('"Discharge point"');
+    expect(changed).toContain('Priya Raman <coordinator@decant.test>');
+    expect(changed).toContain(`name: =HYPERLINK(""http://example.invalid"") → Trail outfall`);
+    const created = lines.find((line) => line.includes('"Created"') && line.includes('TR-1'))!;
+    // Each field starts a line of its own text; a field that would start with "=" gets an apostrophe.
+    expect(created).not.toMatch(/,"=/);
+    await request(t.app)
+      .get('/api/trail/export.csv')
+      .set('cookie', await t.sessionFor('operator@decant.test'))
+      .expect(403);
+  });
+
   it('lists entries newest first, for roles that may read it', async () => {
     const auditor = await t.sessionFor('auditor@decant.test');
     const response = await request(t.app).get('/api/trail?pageSize=5').set('cookie', auditor).expect(200);

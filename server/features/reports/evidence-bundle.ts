@@ -3,16 +3,12 @@ import { once } from 'node:events';
 import archiver from 'archiver';
 import type { Response } from 'express';
 import type { DataSource } from 'typeorm';
-import { neutralised } from '../../../reports/period-pack-xlsx.js';
+import { csvLine } from '../../contracts/csv.js';
 import type { PeriodSummary } from '../../contracts/periods.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import type { PeriodRecord } from '../periods/period-input.repository.js';
 import { exceedanceSourceId, missedMonitoringSourceId } from '../periods/finding-ids.js';
 
-/** One CSV field: quoted, inner quotes doubled, and never a formula. */
-const csvField = (value: unknown) =>
-  `"${neutralised(value === null || value === undefined ? '' : typeof value === 'string' ? value : JSON.stringify(value)).replace(/"/g, '""')}"`;
-const csvLine = (values: unknown[]) => values.map(csvField).join(',');
 const safeName = (name: string) => name.replace(/[^A-Za-z0-9._-]+/g, '-').slice(0, 120);
 
 /** The stored files the bundle carries, by folder: certificates, shipment scans, follow-up evidence. */
