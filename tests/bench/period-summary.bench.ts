@@ -3,6 +3,9 @@ import type { DataSource } from 'typeorm';
 import { createDataSource } from '../../server/db/data-source.js';
 import { prepareDatabase } from '../../server/db/prepare.js';
 import { findPeriod } from '../../server/features/periods/periods.repository.js';
+import { periodPackPdf } from '../../reports/period-pack-pdf.js';
+import { periodPackXlsx } from '../../reports/period-pack-xlsx.js';
+import { loadPackInput } from '../../server/features/reports/period-pack.repository.js';
 import { summarise } from '../../server/features/periods/summarise.js';
 import { localDatabase } from '../../server/scripts/local-database.js';
 
@@ -140,3 +143,13 @@ console.table(rows);
 console.log(`Target: the summary within 2× the floor and under 300 ms.\n${verdicts.join('\n')}`);
 await ds.destroy();
 if (database.cluster?.startedHere) database.cluster.stop();
+
+// The period pack of that site-year, every result of the year in its tables. Targets: the PDF
+// under 2 s, the workbook under 1 s.
+const packInput = await loadPackInput(ds, period, await summarise(ds, period), new Date());
+const [pdfMs = NaN, xlsxMs = NaN] = await timeInTurns([() => periodPackPdf(packInput), () => periodPackXlsx(packInput)], 1);
+console.log(
+  `\nPeriod pack: ${packInput.samples.length.toLocaleString()} results, ${packInput.flows.length.toLocaleString()} flow readings\n` +
+    `PDF ${(pdfMs / 1000).toFixed(2)} s (target under 2 s: ${pdfMs < 2000 ? 'met' : 'NOT met'}); ` +
+    `XLSX ${(xlsxMs / 1000).toFixed(2)} s (target under 1 s: ${xlsxMs < 1000 ? 'met' : 'NOT met'})`,
+);
