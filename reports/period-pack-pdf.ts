@@ -42,6 +42,25 @@ function table(widths: Array<string | number>, header: TableCell[], rows: TableC
 const h2 = (text: string): Content => ({ text, style: 'h2', margin: [0, 10, 0, 4] });
 const num = (value: number | null | undefined, digits = 1) => (value === null || value === undefined ? '—' : value.toFixed(digits));
 
+/** Per point and unit: how many days were read, and the average, highest and lowest daily flow. */
+function flowSummary(flows: PeriodPackInput['flows']) {
+  const groups = new Map<string, { pointCode: string; unit: string; values: number[] }>();
+  for (const f of flows) {
+    const key = `${f.pointCode}|${f.unit}`;
+    const group = groups.get(key) ?? { pointCode: f.pointCode, unit: f.unit, values: [] };
+    group.values.push(f.value);
+    groups.set(key, group);
+  }
+  return [...groups.values()].map((g) => ({
+    pointCode: g.pointCode,
+    unit: g.unit,
+    days: g.values.length,
+    average: g.values.reduce((a, b) => a + b, 0) / g.values.length,
+    highest: Math.max(...g.values),
+    lowest: Math.min(...g.values),
+  }));
+}
+
 /**
  * The period pack as PDF: a pure builder, pack data in, bytes out. For a signed period every
  * input is fixed (the snapshot, the signing time), so the same signature gives the same file.
@@ -219,7 +238,14 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
       ]),
       'No certificate in the period.',
     ),
-    { text: 'Oil collected, shipped and on hand', style: 'h2', margin: [0, 0, 0, 4], pageBreak: 'before', pageOrientation: 'portrait' },
+    { text: 'Flow', style: 'h2', margin: [0, 0, 0, 4], pageBreak: 'before', pageOrientation: 'portrait' },
+    table(
+      [60, 70, 70, 70, 70, '*'],
+      head('Point', 'Days read', 'Average', 'Highest', 'Lowest', 'Unit'),
+      flowSummary(pack.flows).map((f) => [f.pointCode, String(f.days), num(f.average, 0), num(f.highest, 0), num(f.lowest, 0), f.unit]),
+      'No flow readings in the period.',
+    ),
+    h2('Oil collected, shipped and on hand'),
     {
       text: `Collected ${summary.oil.collectedLitres.toFixed(0)} L; shipped ${summary.oil.shippedLitres.toFixed(0)} L; on hand at the end ${
         summary.oil.onHandAtEndLitres === null ? 'not known (before the opening balance)' : `${summary.oil.onHandAtEndLitres.toFixed(0)} L`
