@@ -53,7 +53,14 @@ describe('a trail that proves itself', () => {
   });
 
   it('catches a change made to a regulated table outside Decant, with what it was before', async () => {
-    const { rows } = await owner.query(`SELECT id, value FROM lab_result ORDER BY id LIMIT 1`);
+    // A result no signed period holds (a signed period's results are locked, whoever asks).
+    const { rows } = await owner.query(
+      `SELECT r.id, r.value FROM lab_result r JOIN lab_sample s ON s.id = r.sample_id
+        WHERE NOT EXISTS (SELECT 1 FROM reporting_period rp JOIN permit_limit l ON l.permit_id = rp.permit_id
+                           WHERE rp.status = 'signed' AND l.discharge_point_id = s.discharge_point_id
+                             AND s.collected_on BETWEEN rp.starts_on AND rp.ends_on)
+        ORDER BY r.id LIMIT 1`,
+    );
     const result = rows[0] as { id: string; value: string };
     await owner.query('BEGIN');
     try {
