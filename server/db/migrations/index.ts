@@ -12,6 +12,7 @@ import { PeriodSignOff1796241600000 } from './1796241600000-PeriodSignOff.js';
 import { PermitSettingsVersions1796245200000 } from './1796245200000-PermitSettingsVersions.js';
 import { ImportRuns1796248800000 } from './1796248800000-ImportRuns.js';
 import { PeriodPacks1796252400000 } from './1796252400000-PeriodPacks.js';
+import { PeriodLockFastPath1796256000000 } from './1796256000000-PeriodLockFastPath.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -29,4 +30,5 @@ export const migrations = [
   PermitSettingsVersions1796245200000,
   ImportRuns1796248800000,
   PeriodPacks1796252400000,
+  PeriodLockFastPath1796256000000,
 ];

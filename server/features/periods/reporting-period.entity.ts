@@ -1,4 +1,4 @@
-import { Check, Column, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
+import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
 import type { PeriodStatus } from '../../contracts/periods.js';
 import { Permit } from '../permits/permit.entity.js';
 
@@ -8,6 +8,7 @@ import { Permit } from '../permits/permit.entity.js';
 )
 @Check('reporting_period_check', `(ends_on >= starts_on)`)
 @Unique('reporting_period_permit_id_starts_on_key', ['permitId', 'startsOn'])
+@Index('IDX_reporting_period_locked', ['permitId'], { where: `status IN ('signed', 'amended')` })
 @Entity('reporting_period')
 export class ReportingPeriod {
   @PrimaryGeneratedColumn('uuid')
