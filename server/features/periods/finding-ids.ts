@@ -13,3 +13,14 @@ export const exceedanceSourceId = (row: RowKey, date: string) => stableId(row.di
 
 /** A monitoring unit (day, week, month, quarter) with fewer samples than required. */
 export const missedMonitoringSourceId = (row: RowKey, unit: string) => stableId(row.dischargePointId, row.parameterId, unit);
+
+/** The source ids of every follow-up a compiled summary's exceedances and missed monitoring open. */
+export function findingSourceIds(summary: {
+  rows: Array<RowKey & { exceedances: Array<{ date: string }>; missedMonitoring: Array<{ unit: string }> }>;
+}): string[] {
+  const ids = summary.rows.flatMap((row) => [
+    ...row.exceedances.map((e) => exceedanceSourceId(row, e.date)),
+    ...row.missedMonitoring.map((m) => missedMonitoringSourceId(row, m.unit)),
+  ]);
+  return [...new Set(ids)];
+}

@@ -215,7 +215,7 @@ export class PeriodsService {
    */
   async packPdf(user: CurrentUser, id: string, revision?: number): Promise<Download> {
     const period = await this.visiblePeriod(user, id);
-    const summary = revision ? await this.signOff.revision(period, revision) : await this.signOff.view(period);
+    const summary = await this.shownSummary(period, revision);
     const signed = summary.status === 'signed' && summary.signature;
     const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision) : null;
     if (kept) return { bytes: kept, mediaType: 'application/pdf', fileName: packFileName(period, summary, 'pdf') };
@@ -240,7 +240,7 @@ export class PeriodsService {
   /** The period pack as a workbook: the signed snapshot's figures, or a draft's. */
   async packXlsx(user: CurrentUser, id: string, revision?: number): Promise<Download> {
     const period = await this.visiblePeriod(user, id);
-    const summary = revision ? await this.signOff.revision(period, revision) : await this.signOff.view(period);
+    const summary = await this.shownSummary(period, revision);
     return periodPackXlsxDownload(this.dataSource, period, summary);
   }
 
@@ -261,6 +261,11 @@ export class PeriodsService {
       });
     });
     return this.signOff.view((await findPeriod(this.dataSource, period.id))!);
+  }
+
+  /** What the period page shows: a given signed revision, or the period now (snapshot or draft). */
+  private shownSummary(period: PeriodRecord, revision?: number): Promise<PeriodSummary> {
+    return revision ? this.signOff.revision(period, revision) : this.signOff.view(period);
   }
 
   private async visiblePeriod(user: CurrentUser, id: string): Promise<PeriodRecord> {

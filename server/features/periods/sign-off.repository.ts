@@ -2,7 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { PeriodSummary, SignatureInputs, SignOffItem } from '../../contracts/periods.js';
 import { labFindingCodes } from '../../domain/lab-checks.js';
 import { sncWindows } from '../../domain/period/significant-noncompliance.js';
-import { exceedanceSourceId, missedMonitoringSourceId } from './finding-ids.js';
+import { findingSourceIds } from './finding-ids.js';
 import { TrailChainHead } from '../../kernel/trail/trail-chain-head.entity.js';
 import type { PeriodRecord } from './period-input.repository.js';
 import { PeriodAmendment } from './period-amendment.entity.js';
@@ -35,16 +35,11 @@ export async function signOffItems(db: Db, period: PeriodRecord, summary: Pick<P
       ORDER BY s.collected_on, d.code, p.name`,
     [period.siteId, period.startsOn, period.endsOn, labFindingCodes],
   );
-  // The open follow-ups of this period's own exceedances and missed monitoring.
-  const sources = summary.rows.flatMap((row) => [
-    ...row.exceedances.map((e) => exceedanceSourceId(row, e.date)),
-    ...row.missedMonitoring.map((m) => missedMonitoringSourceId(row, m.unit)),
-  ]);
   const followUps: Array<{ id: string; title: string }> = await db.query(
     `SELECT id, title FROM follow_up WHERE site_id = $1 AND status = 'open' AND source_entity IN ('exceedance', 'missed-monitoring')
         AND source_id = ANY($2::uuid[])
       ORDER BY due_at`,
-    [period.siteId, [...new Set(sources)]],
+    [period.siteId, findingSourceIds(summary)],
   );
   return [
     ...findings.map((f): SignOffItem => ({

@@ -7,16 +7,12 @@ import { csvLine } from '../../contracts/csv.js';
 import type { PeriodSummary } from '../../contracts/periods.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import type { PeriodRecord } from '../periods/period-input.repository.js';
-import { exceedanceSourceId, missedMonitoringSourceId } from '../periods/finding-ids.js';
+import { findingSourceIds } from '../periods/finding-ids.js';
 
 const safeName = (name: string) => name.replace(/[^A-Za-z0-9._-]+/g, '-').slice(0, 120);
 
 /** The stored files the bundle carries, by folder: certificates, shipment scans, follow-up evidence. */
 async function evidenceFiles(db: DataSource, period: PeriodRecord, summary: PeriodSummary) {
-  const sources = summary.rows.flatMap((row) => [
-    ...row.exceedances.map((e) => exceedanceSourceId(row, e.date)),
-    ...row.missedMonitoring.map((m) => missedMonitoringSourceId(row, m.unit)),
-  ]);
   // Raw SQL: one read of every file id with the folder and name it takes in the bundle.
   const rows: Array<{ id: string; folder: string; label: string }> = await db.query(
     `SELECT DISTINCT c.file_id AS id, 'certificates' AS folder, c.report_number AS label
@@ -30,7 +26,7 @@ async function evidenceFiles(db: DataSource, period: PeriodRecord, summary: Peri
      SELECT f.closing_file_id, 'follow-ups', f.kind FROM follow_up f
       WHERE f.site_id = $1 AND f.closing_file_id IS NOT NULL AND f.source_id = ANY($5::uuid[])
      ORDER BY 2, 3`,
-    [period.siteId, period.startsOn, period.endsOn, period.permitId, [...new Set(sources)]],
+    [period.siteId, period.startsOn, period.endsOn, period.permitId, findingSourceIds(summary)],
   );
   return rows;
 }

@@ -4,7 +4,7 @@ import type { PeriodSummary } from '../../contracts/periods.js';
 import { labFindingCodes } from '../../domain/lab-checks.js';
 import { certificationStatements } from '../../domain/period/certification.js';
 import { shownValue } from '../lab/lab.repository.js';
-import { exceedanceSourceId, missedMonitoringSourceId } from '../periods/finding-ids.js';
+import { findingSourceIds } from '../periods/finding-ids.js';
 import type { PeriodRecord } from '../periods/period-input.repository.js';
 
 type Db = DataSource | EntityManager;
@@ -58,15 +58,11 @@ export async function loadPackInput(db: Db, period: PeriodRecord, summary: Perio
       WHERE f.discharge_point_id = ANY($1::uuid[]) AND f.day BETWEEN $2 AND $3 ORDER BY f.day, d.code`,
     [pointIds, period.startsOn, period.endsOn],
   );
-  const sources = summary.rows.flatMap((row) => [
-    ...row.exceedances.map((e) => exceedanceSourceId(row, e.date)),
-    ...row.missedMonitoring.map((m) => missedMonitoringSourceId(row, m.unit)),
-  ]);
   const followUps = await db.query(
     `SELECT f.title, ${localText('s.time_zone', 'f.due_at')} AS due_at, f.status, ${localText('s.time_zone', 'f.closed_at')} AS closed_at, f.closing_note
        FROM follow_up f JOIN site s ON s.id = f.site_id
       WHERE f.site_id = $1 AND f.source_id = ANY($2::uuid[]) ORDER BY f.due_at, f.title`,
-    [period.siteId, [...new Set(sources)]],
+    [period.siteId, findingSourceIds(summary)],
   );
   const statement = certificationStatements[period.permitKind];
   const number = (value: string | null) => (value === null ? null : Number(value));
