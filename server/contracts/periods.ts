@@ -113,6 +113,7 @@ export const Signature = z.object({
   trailHead: doc(z.object({ seq: z.string(), hash: z.string() }), "The trail chain's head when the period was signed"),
   amendmentReason: doc(z.string().nullable(), 'For revision 2 and later: why the period was amended'),
   packSha256: doc(z.string().nullable(), 'SHA-256 of the period pack (PDF) stored with the signature'),
+  packXlsxSha256: doc(z.string().nullable(), 'SHA-256 of the period pack workbook (XLSX) stored with the signature'),
 });
 export type Signature = z.infer<typeof Signature>;
 

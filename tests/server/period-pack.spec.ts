@@ -125,42 +125,6 @@ describe('the period pack (PDF)', () => {
     expect(text).toContain('PK-REPORT-1');
   });
 
-  it('keeps the signed pack: the same bytes on every download and after the live records move', async () => {
-    const { body: compiled } = await request(t.app).post(`/api/periods/${periodId}/compile`).set('cookie', coordinator).expect(200);
-    const signed = await request(t.app)
-      .post(`/api/periods/${periodId}/sign`)
-      .set('cookie', coordinator)
-      .send({
-        compiledAt: compiled.compiledAt,
-        statementAccepted: true,
-        acknowledged: true,
-        signerName: 'Priya Raman',
-        signerTitle: 'EHS coordinator',
-      })
-      .expect(200);
-    const first = await download(`/api/periods/${periodId}/pack.pdf`).expect(200);
-    expect(createHash('sha256').update(first.body).digest('hex')).toBe(signed.body.signature.packSha256);
-    const text = await textOf(first.body);
-    expect(text).not.toContain('DRAFT');
-    expect(text).toContain('Signed by Priya Raman');
-    expect(text).toContain(certificationStatements.pretreatment.text.slice(0, 120));
-    expect(text).toContain('40 CFR 403.6(a)(2)(ii), as 40 CFR 403.12(l) requires');
-    expect(text).toContain(signed.body.signature.sha256);
-
-    // Unrelated live changes: a follow-up of the period closed, oil logged at the site.
-    const [followUp] = await t.dataSource.query(
-      `SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' AND title LIKE '%OF-PK%' LIMIT 1`,
-      [ids.north],
-    );
-    if (followUp) {
-      await request(t.app).post(`/api/follow-ups/${followUp.id}/close`).set('cookie', coordinator).send({ note: 'Called the authority' });
-    }
-    const again = await download(`/api/periods/${periodId}/pack.pdf`).expect(200);
-    expect(Buffer.compare(again.body, first.body)).toBe(0);
-    const revision = await download(`/api/periods/${periodId}/revisions/1/pack.pdf`).expect(200);
-    expect(Buffer.compare(revision.body, first.body)).toBe(0);
-  });
-
   it('writes the workbook with numbers as numbers, days as dates, and record text that can never run as a formula', async () => {
     await request(t.app)
       .post('/api/shipments')
@@ -212,6 +176,49 @@ describe('the period pack (PDF)', () => {
     expect(cell.type).toBe(ExcelJS.ValueType.String);
     expect(cell.value).toBe('\'=HYPERLINK("http://example.invalid","click")');
     workbook.eachSheet((ws) => ws.eachRow((row) => row.eachCell((c) => expect(c.type).not.toBe(ExcelJS.ValueType.Formula))));
+  });
+
+  it('keeps the signed pack: the same bytes on every download and after the live records move', async () => {
+    const { body: compiled } = await request(t.app).post(`/api/periods/${periodId}/compile`).set('cookie', coordinator).expect(200);
+    const signed = await request(t.app)
+      .post(`/api/periods/${periodId}/sign`)
+      .set('cookie', coordinator)
+      .send({
+        compiledAt: compiled.compiledAt,
+        statementAccepted: true,
+        acknowledged: true,
+        signerName: 'Priya Raman',
+        signerTitle: 'EHS coordinator',
+      })
+      .expect(200);
+    const first = await download(`/api/periods/${periodId}/pack.pdf`).expect(200);
+    expect(createHash('sha256').update(first.body).digest('hex')).toBe(signed.body.signature.packSha256);
+    const firstWorkbook = await download(`/api/periods/${periodId}/pack.xlsx`).expect(200);
+    expect(createHash('sha256').update(firstWorkbook.body).digest('hex')).toBe(signed.body.signature.packXlsxSha256);
+    const text = await textOf(first.body);
+    expect(text).not.toContain('DRAFT');
+    expect(text).toContain('Signed by Priya Raman');
+    expect(text).toContain(certificationStatements.pretreatment.text.slice(0, 120));
+    expect(text).toContain('40 CFR 403.6(a)(2)(ii), as 40 CFR 403.12(l) requires');
+    expect(text).toContain(signed.body.signature.sha256);
+
+    // Unrelated live changes: a follow-up of the period closed, oil logged at the site.
+    const [followUp] = await t.dataSource.query(
+      `SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' AND title LIKE '%OF-PK%' LIMIT 1`,
+      [ids.north],
+    );
+    if (followUp) {
+      await request(t.app).post(`/api/follow-ups/${followUp.id}/close`).set('cookie', coordinator).send({ note: 'Called the authority' });
+    }
+    const again = await download(`/api/periods/${periodId}/pack.pdf`).expect(200);
+    expect(Buffer.compare(again.body, first.body)).toBe(0);
+    const revision = await download(`/api/periods/${periodId}/revisions/1/pack.pdf`).expect(200);
+    expect(Buffer.compare(revision.body, first.body)).toBe(0);
+    // The workbook lists the period's follow-ups; the one closed above must still read as signed.
+    const workbookAgain = await download(`/api/periods/${periodId}/pack.xlsx`).expect(200);
+    expect(Buffer.compare(workbookAgain.body, firstWorkbook.body)).toBe(0);
+    const workbookRevision = await download(`/api/periods/${periodId}/revisions/1/pack.xlsx`).expect(200);
+    expect(Buffer.compare(workbookRevision.body, firstWorkbook.body)).toBe(0);
   });
 
   it('bundles the period’s evidence in one ZIP whose manifest holds the SHA-256 of every file in it', async () => {

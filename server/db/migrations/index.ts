@@ -13,6 +13,7 @@ import { PermitSettingsVersions1796245200000 } from './1796245200000-PermitSetti
 import { ImportRuns1796248800000 } from './1796248800000-ImportRuns.js';
 import { PeriodPacks1796252400000 } from './1796252400000-PeriodPacks.js';
 import { PeriodLockFastPath1796256000000 } from './1796256000000-PeriodLockFastPath.js';
+import { PeriodPackWorkbooks1796259600000 } from './1796259600000-PeriodPackWorkbooks.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -31,4 +32,5 @@ export const migrations = [
   ImportRuns1796248800000,
   PeriodPacks1796252400000,
   PeriodLockFastPath1796256000000,
+  PeriodPackWorkbooks1796259600000,
 ];

@@ -82,4 +82,11 @@ export class PeriodSignature {
 
   @Column({ type: 'char', name: 'pack_sha256', length: 64, nullable: true })
   packSha256: string | null;
+
+  /** The period pack's workbook (XLSX) as signed; read only when downloaded. */
+  @Column({ type: 'bytea', name: 'pack_xlsx', nullable: true, select: false })
+  packXlsx?: Buffer | null;
+
+  @Column({ type: 'char', name: 'pack_xlsx_sha256', length: 64, nullable: true })
+  packXlsxSha256: string | null;
 }

@@ -96,6 +96,12 @@ export function periodsRoutes(dataSource: DataSource): Router {
       sendDownload(res, await periods.packPdf(user, params.id, params.revision)),
     ),
   );
+  router.get(
+    '/:id/revisions/:revision/pack.xlsx',
+    ...endpoint({ action: 'periods.read', params: RevisionParams }, async ({ user, params, res }) =>
+      sendDownload(res, await periods.packXlsx(user, params.id, params.revision)),
+    ),
+  );
 
   return router;
 }

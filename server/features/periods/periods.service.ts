@@ -16,7 +16,7 @@ import { exceedanceSourceId, missedMonitoringSourceId, stableId } from './findin
 import type { Response } from 'express';
 import type { Download } from '../../http/download.js';
 import { streamEvidenceBundle } from '../reports/evidence-bundle.js';
-import { packFileName, periodPackDownload, periodPackXlsxDownload } from '../reports/period-pack.service.js';
+import { XLSX_MEDIA_TYPE, packFileName, periodPackDownload, periodPackXlsxDownload } from '../reports/period-pack.service.js';
 import { storedPack } from './sign-off.repository.js';
 import { PeriodSignOffService } from './sign-off.service.js';
 import { summarise } from './summarise.js';
@@ -217,7 +217,7 @@ export class PeriodsService {
     const period = await this.visiblePeriod(user, id);
     const summary = await this.shownSummary(period, revision);
     const signed = summary.status === 'signed' && summary.signature;
-    const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision) : null;
+    const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision, 'pdf') : null;
     if (kept) return { bytes: kept, mediaType: 'application/pdf', fileName: packFileName(period, summary, 'pdf') };
     return periodPackDownload(this.dataSource, period, summary);
   }
@@ -237,10 +237,13 @@ export class PeriodsService {
     });
   }
 
-  /** The period pack as a workbook: the signed snapshot's figures, or a draft's. */
+  /** The period pack as a workbook: kept with the signature like the PDF, or built now for a draft. */
   async packXlsx(user: CurrentUser, id: string, revision?: number): Promise<Download> {
     const period = await this.visiblePeriod(user, id);
     const summary = await this.shownSummary(period, revision);
+    const signed = summary.status === 'signed' && summary.signature;
+    const kept = signed ? await storedPack(this.dataSource, period.id, summary.signature!.revision, 'xlsx') : null;
+    if (kept) return { bytes: kept, mediaType: XLSX_MEDIA_TYPE, fileName: packFileName(period, summary, 'xlsx') };
     return periodPackXlsxDownload(this.dataSource, period, summary);
   }
 

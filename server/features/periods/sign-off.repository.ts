@@ -142,13 +142,14 @@ export async function storedCompile(db: Db, periodId: string): Promise<{ summary
   return { summary: (row?.summary as PeriodSummary | null) ?? null, compiledAt: row?.compiledAt ?? null };
 }
 
-/** The pack kept with a signed revision. */
-export async function storedPack(db: Db, periodId: string, revision: number): Promise<Buffer | null> {
+/** The pack (PDF or workbook) kept with a signed revision; revisions signed before workbooks were kept have none. */
+export async function storedPack(db: Db, periodId: string, revision: number, format: 'pdf' | 'xlsx'): Promise<Buffer | null> {
+  const column = format === 'pdf' ? 'packPdf' : 'packXlsx';
   const row = await db
     .getRepository(PeriodSignature)
     .createQueryBuilder('s')
-    .addSelect('s.packPdf')
+    .addSelect(`s.${column}`)
     .where('s.periodId = :periodId AND s.revision = :revision', { periodId, revision })
     .getOne();
-  return row?.packPdf ?? null;
+  return row?.[column] ?? null;
 }

@@ -32,7 +32,7 @@ import {
   storedCompile,
   trailHead,
 } from './sign-off.repository.js';
-import { buildPeriodPackPdf } from '../reports/period-pack.service.js';
+import { buildPeriodPack } from '../reports/period-pack.service.js';
 import { summarise } from './summarise.js';
 
 const sha256 = (value: unknown) => createHash('sha256').update(stableStringify(value)).digest('hex');
@@ -59,6 +59,7 @@ function signatureView(signature: PeriodSignature): Signature {
     trailHead: { seq: String(signature.trailHeadSeq), hash: signature.trailHeadHash },
     amendmentReason: signature.amendment?.reason ?? null,
     packSha256: signature.packSha256,
+    packXlsxSha256: signature.packXlsxSha256,
   };
 }
 
@@ -198,7 +199,7 @@ export async function signWithin(manager: EntityManager, user: Signatory, period
   };
   const sha = sha256({ ...signature, signedAt: signature.signedAt.toISOString(), signerEmail: user.email });
   // The pack is built now, as signed, and kept with the signature: the same file for good.
-  const packPdf = await buildPeriodPackPdf(manager, period, {
+  const pack = await buildPeriodPack(manager, period, {
     ...shown,
     status: 'signed',
     revision: signature.revision,
@@ -213,10 +214,18 @@ export async function signWithin(manager: EntityManager, user: Signatory, period
       trailHead: { seq: String(signature.trailHeadSeq), hash: signature.trailHeadHash },
       amendmentReason: amendment?.reason ?? null,
       packSha256: null,
+      packXlsxSha256: null,
     },
   });
-  const packSha256 = createHash('sha256').update(packPdf).digest('hex');
-  await saveSignature(manager, { ...signature, sha256: sha, packPdf, packSha256 });
+  const hex = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
+  await saveSignature(manager, {
+    ...signature,
+    sha256: sha,
+    packPdf: pack.pdf,
+    packSha256: hex(pack.pdf),
+    packXlsx: pack.xlsx,
+    packXlsxSha256: hex(pack.xlsx),
+  });
   await recordTrail(manager, user, {
     action: 'sign',
     entity: 'reporting-period',
