@@ -1,6 +1,7 @@
 import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
 import pdfmake from 'pdfmake';
+import type PDFKit from 'pdfkit';
 import type { TDocumentDefinitions } from 'pdfmake/interfaces.js';
 
 /**
@@ -8,19 +9,25 @@ import type { TDocumentDefinitions } from 'pdfmake/interfaces.js';
  * subset covers Western European text; characters outside it print as boxes.
  */
 const require = createRequire(import.meta.url);
-const font = (weight: number) => require.resolve(`@fontsource/noto-sans/files/noto-sans-latin-${weight}-normal.woff`);
-const fontDir = dirname(font(400));
+export const fontFile = (weight: 400 | 700): string => require.resolve(`@fontsource/noto-sans/files/noto-sans-latin-${weight}-normal.woff`);
+const fontDir = dirname(fontFile(400));
 
 let configured = false;
 function configure(): void {
   if (configured) return;
-  pdfmake.setFonts({ NotoSans: { normal: font(400), bold: font(700), italics: font(400), bolditalics: font(700) } });
+  pdfmake.setFonts({ NotoSans: { normal: fontFile(400), bold: fontFile(700), italics: fontFile(400), bolditalics: fontFile(700) } });
   pdfmake.setUrlAccessPolicy(() => false);
   pdfmake.setLocalAccessPolicy((path) => path.startsWith(fontDir));
   configured = true;
 }
 
-export async function renderPdf(definition: TDocumentDefinitions): Promise<Buffer> {
+/**
+ * Lays out the document; `after`, when given, draws more pages on the same PDF document (the
+ * record-table pages) before it is closed.
+ */
+export async function renderPdf(definition: TDocumentDefinitions, after?: (doc: PDFKit.PDFDocument) => void): Promise<Buffer> {
   configure();
-  return pdfmake.createPdf({ ...definition, defaultStyle: { font: 'NotoSans', fontSize: 9, ...definition.defaultStyle } }).getBuffer();
+  const output = pdfmake.createPdf({ ...definition, defaultStyle: { font: 'NotoSans', fontSize: 9, ...definition.defaultStyle } });
+  if (after) after((await output.getStream()) as PDFKit.PDFDocument);
+  return output.getBuffer();
 }

@@ -1,7 +1,9 @@
 import type { Content, TableCell, TDocumentDefinitions } from 'pdfmake/interfaces.js';
 import type { PeriodPackInput } from '../server/contracts/period-pack.js';
 import type { LimitRow } from '../server/contracts/periods.js';
-import { renderPdf } from './pdf.js';
+import type PDFKit from 'pdfkit';
+import { fontFile, renderPdf } from './pdf.js';
+import { drawRecordPages, recordPagesNeeded, type RecordPageFrame } from './record-pages.js';
 
 const statisticWords: Record<LimitRow['statistic'], string> = {
   'daily-maximum': 'Daily maximum',
@@ -205,25 +207,14 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
       ],
       margin: [0, 0, 0, 6],
     },
-    // The record tables are wide: they get landscape pages of their own.
-    { text: 'Samples and results', style: 'h2', margin: [0, 0, 0, 4], pageBreak: 'before', pageOrientation: 'landscape' },
-    table(
-      [66, 38, 130, 56, 26, 26, 56, 150, 90],
-      head('Sampled (site time)', 'Point', 'Parameter', 'Result', 'MDL', 'ML', 'Method', 'Lab, report', 'Findings'),
-      pack.samples.map((s) => [
-        s.sampledAt,
-        s.pointCode,
-        s.parameter,
-        `${s.result} ${s.unit}`,
-        num(s.mdl),
-        num(s.ml),
-        s.method,
-        `${s.lab}, ${s.reportNumber}`,
-        s.findings.map(words).join(', ') || '—',
-      ]),
-      'No results in the period.',
-      7.5,
-    ),
+    h2('Samples and results'),
+    {
+      text:
+        pack.samples.length === 0
+          ? 'No results in the period.'
+          : `Every result of the period, sample by sample (${pack.samples.length.toLocaleString('en-US')}), is listed on the last pages of this report.`,
+      margin: [0, 0, 0, 6],
+    },
     h2('Lab certificates'),
     table(
       [76, 110, 100, 56, 100, 200],
@@ -238,7 +229,7 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
       ]),
       'No certificate in the period.',
     ),
-    { text: 'Flow', style: 'h2', margin: [0, 0, 0, 4], pageBreak: 'before', pageOrientation: 'portrait' },
+    h2('Flow'),
     table(
       [60, 70, 70, 70, 70, '*'],
       head('Point', 'Days read', 'Average', 'Highest', 'Lowest', 'Unit'),
@@ -288,6 +279,15 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
       : { text: 'Not signed. This is a draft compiled from the records as they were at the time printed.', bold: true },
   );
 
+  const running: RunningText = {
+    headerLeft: `${site.name} · permit ${permit.number}`,
+    headerRight: `${periodText} · ${revision}`,
+    footerLeft: `Generated ${pack.generatedAt} (site time)${signature ? ` · snapshot SHA-256 ${signature.sha256}` : ''}`,
+    draft: !signature,
+  };
+  const frame = recordFrame(running);
+  const samplePages = recordPagesNeeded(pack.samples.length, frame);
+  let pageCount = 0;
   const definition: TDocumentDefinitions = {
     pageSize: 'LETTER',
     pageOrientation: 'portrait',
@@ -303,16 +303,16 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
     watermark: signature ? undefined : { text: 'DRAFT', opacity: 0.12, bold: true },
     header: () => ({
       columns: [
-        { text: `${site.name} · permit ${permit.number}`, bold: true },
-        { text: `${periodText} · ${revision}`, alignment: 'right' },
+        { text: running.headerLeft, bold: true },
+        { text: running.headerRight, alignment: 'right' },
       ],
       margin: [36, 24, 36, 0],
       fontSize: 8,
     }),
     footer: (currentPage, pageCount) => ({
       columns: [
-        { text: `Generated ${pack.generatedAt} (site time)${signature ? ` · snapshot SHA-256 ${signature.sha256}` : ''}`, fontSize: 6.5 },
-        { text: `Page ${currentPage} of ${pageCount}`, alignment: 'right', width: 70 },
+        { text: running.footerLeft, fontSize: 6.5 },
+        { text: `Page ${currentPage} of ${pageCount + samplePages}`, alignment: 'right', width: 70 },
       ],
       margin: [36, 16, 36, 0],
       fontSize: 8,
@@ -327,5 +327,82 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
     },
     defaultStyle: { fontSize: 8.5, lineHeight: 1.15 },
   };
-  return renderPdf(definition);
+  // Counted as pdfmake lays out pages, so the record pages continue its numbering.
+  const footer = definition.footer as (currentPage: number, pageCount: number) => Content;
+  definition.footer = (currentPage, count) => ((pageCount = count), footer(currentPage, count));
+  frame.totalPages = () => pageCount + samplePages;
+  return renderPdf(definition, (doc) =>
+    drawRecordPages(
+      doc,
+      frame,
+      {
+        title: 'Samples and results',
+        columns: [
+          { header: 'Sampled (site time)', width: 80 },
+          { header: 'Point', width: 44 },
+          { header: 'Parameter', width: 130 },
+          { header: 'Result', width: 62 },
+          { header: 'MDL', width: 30 },
+          { header: 'ML', width: 30 },
+          { header: 'Method', width: 56 },
+          { header: 'Lab, report', width: 148 },
+          { header: 'Findings', width: 140 },
+        ],
+        rows: pack.samples.map((s) => [
+          s.sampledAt,
+          s.pointCode,
+          s.parameter,
+          `${s.result} ${s.unit}`,
+          num(s.mdl),
+          num(s.ml),
+          s.method,
+          `${s.lab}, ${s.reportNumber}`,
+          s.findings.map(words).join(', ') || '—',
+        ]),
+        empty: 'No results in the period.',
+      },
+      pageCount + 1,
+    ),
+  );
+}
+
+/** What every page carries, whoever draws it. */
+interface RunningText {
+  headerLeft: string;
+  headerRight: string;
+  footerLeft: string;
+  draft: boolean;
+}
+
+/** Landscape US-letter pages for the record tables, with the same running header, footer and draft mark. */
+function recordFrame(running: RunningText): RecordPageFrame & { totalPages: () => number } {
+  const width = 792;
+  const height = 612;
+  const frame = {
+    size: 'LETTER',
+    layout: 'landscape' as const,
+    width,
+    height,
+    margins: { top: 54, bottom: 48, left: 36, right: 36 },
+    regularFont: fontFile(400),
+    boldFont: fontFile(700),
+    totalPages: () => 0,
+    decorate(doc: PDFKit.PDFDocument, pageNumber: number) {
+      if (running.draft) {
+        doc.save();
+        doc.rotate((-Math.atan2(height, width) * 180) / Math.PI, { origin: [width / 2, height / 2] });
+        doc.font(fontFile(700)).fontSize(150).fillColor('black').fillOpacity(0.12);
+        doc.text('DRAFT', width / 2 - doc.widthOfString('DRAFT') / 2, height / 2 - 75, { lineBreak: false });
+        doc.restore();
+      }
+      doc.fillColor('black').fillOpacity(1);
+      doc.font(fontFile(700)).fontSize(8).text(running.headerLeft, 36, 24, { lineBreak: false });
+      doc.font(fontFile(400)).fontSize(8);
+      doc.text(running.headerRight, width - 36 - doc.widthOfString(running.headerRight), 24, { lineBreak: false });
+      const pageText = `Page ${pageNumber} of ${frame.totalPages()}`;
+      doc.text(pageText, width - 36 - doc.widthOfString(pageText), height - 32, { lineBreak: false });
+      doc.fontSize(6.5).text(running.footerLeft, 36, height - 32, { lineBreak: false });
+    },
+  };
+  return frame;
 }

@@ -1,4 +1,5 @@
 import ExcelJS from 'exceljs';
+import { PassThrough } from 'node:stream';
 import type { PeriodPackInput } from '../server/contracts/period-pack.js';
 import type { LimitRow } from '../server/contracts/periods.js';
 
@@ -19,7 +20,10 @@ const siteTime = (text: string | null): Date | null => (text ? new Date(`${text.
 const dateFormat = 'yyyy-mm-dd';
 const timeFormat = 'yyyy-mm-dd hh:mm';
 
-function sheet(workbook: ExcelJS.Workbook, name: string, columns: Column[], rows: Cell[][]): void {
+type WorkbookWriter = InstanceType<typeof ExcelJS.stream.xlsx.WorkbookWriter>;
+
+/** One sheet written row by row: the streaming writer keeps no cell objects once a row is committed. */
+function sheet(workbook: WorkbookWriter, name: string, columns: Column[], rows: Iterable<Cell[]>): void {
   const ws = workbook.addWorksheet(name, { views: [{ state: 'frozen', ySplit: 1 }] });
   ws.columns = columns.map((column) => ({
     header: column.header,
@@ -27,8 +31,40 @@ function sheet(workbook: ExcelJS.Workbook, name: string, columns: Column[], rows
     style: column.format ? { numFmt: column.format } : {},
   }));
   ws.getRow(1).font = { bold: true };
-  for (const row of rows) ws.addRow(row.map((cell) => (typeof cell === 'string' ? neutralised(cell) : cell)));
   ws.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: columns.length } };
+  ws.getRow(1).commit();
+  // One style object per column, shared by its cells: the writer recognises a style it has seen by
+  // identity, where the copy each new cell gets would be serialised and looked up again.
+  const styles = columns.map((column) => (column.format ? { numFmt: column.format } : {}));
+  for (const values of rows) {
+    const row = ws.addRow(values.map((cell) => (typeof cell === 'string' ? neutralised(cell) : cell)));
+    for (let index = 0; index < styles.length; index++) row.getCell(index + 1).style = styles[index]!;
+    row.commit();
+  }
+  ws.commit();
+}
+
+/**
+ * Each day's discharge once per point, parameter and unit: a limit pair (daily maximum and
+ * monthly average) and the versions of a limit share the same daily discharges.
+ */
+function* dailyDischarges(rows: LimitRow[]): Generator<Cell[]> {
+  const seen = new Set<string>();
+  for (const row of rows) {
+    for (const d of row.dailyValues) {
+      const key = `${row.pointCode}\u0000${row.parameter}\u0000${row.unit}\u0000${d.day}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      yield [
+        day(d.day),
+        row.pointCode,
+        row.parameter,
+        typeof d.value === 'number' ? d.value : null,
+        row.unit,
+        d.massLoading?.lbPerDay ?? null,
+      ];
+    }
+  }
 }
 
 const verdict = (row: LimitRow) =>
@@ -46,7 +82,11 @@ const verdict = (row: LimitRow) =>
  */
 export async function periodPackXlsx(pack: PeriodPackInput): Promise<Buffer> {
   const { summary } = pack;
-  const workbook = new ExcelJS.Workbook();
+  const output = new PassThrough();
+  const chunks: Buffer[] = [];
+  output.on('data', (chunk: Buffer) => chunks.push(chunk));
+  const finished = new Promise((resolve, reject) => output.on('end', resolve).on('error', reject));
+  const workbook = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: output, useStyles: true, useSharedStrings: false });
   workbook.creator = 'Decant';
   const stamp = new Date(summary.signature?.signedAt ?? summary.compiledAt);
   workbook.created = stamp;
@@ -91,22 +131,11 @@ export async function periodPackXlsx(pack: PeriodPackInput): Promise<Buffer> {
       { header: 'Day', width: 12, format: dateFormat },
       { header: 'Point', width: 10 },
       { header: 'Parameter', width: 34 },
-      { header: 'Statistic', width: 20 },
       { header: 'Daily discharge (number; empty when <ML)', width: 16, format: '0.####' },
       { header: 'Unit', width: 9 },
       { header: 'Loading, lb/day', width: 14, format: '0.###' },
     ],
-    summary.rows.flatMap((row) =>
-      row.dailyValues.map((d) => [
-        day(d.day),
-        row.pointCode,
-        row.parameter,
-        row.statistic,
-        typeof d.value === 'number' ? d.value : null,
-        row.unit,
-        d.massLoading?.lbPerDay ?? null,
-      ]),
-    ),
+    dailyDischarges(summary.rows),
   );
   sheet(
     workbook,
@@ -207,5 +236,7 @@ export async function periodPackXlsx(pack: PeriodPackInput): Promise<Buffer> {
     ],
     pack.followUps.map((f) => [f.title, siteTime(f.dueAt), f.status, siteTime(f.closedAt), f.closingNote ?? '']),
   );
-  return Buffer.from(await workbook.xlsx.writeBuffer());
+  await workbook.commit();
+  await finished;
+  return Buffer.concat(chunks);
 }
