@@ -215,7 +215,8 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
           : `Every result of the period, sample by sample (${pack.samples.length.toLocaleString('en-US')}), is listed on the last pages of this report.`,
       margin: [0, 0, 0, 6],
     },
-    h2('Lab certificates'),
+    // The certificate index is wide (file name and SHA-256): a landscape page of its own.
+    { text: 'Lab certificates', style: 'h2', margin: [0, 0, 0, 4], pageBreak: 'before', pageOrientation: 'landscape' },
     table(
       [76, 110, 100, 56, 100, 200],
       head('Report', 'Lab', 'Sampled', 'Received', 'Analysed', 'File and SHA-256'),
@@ -229,7 +230,7 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
       ]),
       'No certificate in the period.',
     ),
-    h2('Flow'),
+    { text: 'Flow', style: 'h2', margin: [0, 0, 0, 4], pageBreak: 'before', pageOrientation: 'portrait' },
     table(
       [60, 70, 70, 70, 70, '*'],
       head('Point', 'Days read', 'Average', 'Highest', 'Lowest', 'Unit'),
@@ -345,7 +346,7 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
           { header: 'MDL', width: 30 },
           { header: 'ML', width: 30 },
           { header: 'Method', width: 56 },
-          { header: 'Lab, report', width: 148 },
+          { header: 'Report, lab', width: 148 },
           { header: 'Findings', width: 140 },
         ],
         rows: pack.samples.map((s) => [
@@ -356,7 +357,7 @@ export function periodPackPdf(pack: PeriodPackInput): Promise<Buffer> {
           num(s.mdl),
           num(s.ml),
           s.method,
-          `${s.lab}, ${s.reportNumber}`,
+          `${s.reportNumber}, ${s.lab}`,
           s.findings.map(words).join(', ') || '—',
         ]),
         empty: 'No results in the period.',
