@@ -26,6 +26,7 @@ import { sitesRoutes } from './features/sites/sites.routes.js';
 import { trailRoutes } from './features/trail/trail.routes.js';
 import { importRunsRoutes } from './features/imports/imports.routes.js';
 import { meRoutes } from './features/users/me.routes.js';
+import { mailPreferencesRoutes, unsubscribeRoutes } from './features/notices/notices.routes.js';
 import { usersRoutes } from './features/users/users.routes.js';
 import { apiNotFound, errorHandler } from './middleware/error-handler.js';
 import { signInRateLimit, writeRateLimit } from './middleware/rate-limits.js';
@@ -63,6 +64,8 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
   mountRouter(api, '/health', healthRoutes(dataSource));
+  // From a mail, without a session: the signed token is the authority (and RFC 8058 posts cross-site).
+  mountRouter(api, '/mail/unsubscribe', unsubscribeRoutes(dataSource, config.sessionSecret));
   api.use(sessionMiddleware(config, sessionPool));
   api.use(sameOrigin(config.appUrl));
   api.use(writeRateLimit());
@@ -70,6 +73,7 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   api.use(loadCurrentUser(dataSource));
   mountRouter(api, '/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
   mountRouter(api, '/me', meRoutes(dataSource));
+  mountRouter(api, '/mail/preferences', mailPreferencesRoutes(dataSource));
   mountRouter(api, '/users', usersRoutes(dataSource));
   mountRouter(api, '/sites/:siteId/discharge-points', dischargePointsRoutes(dataSource));
   mountRouter(api, '/sites/:siteId/oil-on-hand', oilOnHandRoutes(dataSource));

@@ -21,6 +21,7 @@ const Env = z
     OIDC_CLIENT_SECRET: z.string().default('decant-local-secret'),
     SESSION_SECRET: z.string().min(16).optional(),
     SMTP_PORT: port.default(4282),
+    MAIL_INBOX_PORT: port.default(4284),
     SMTP_URL: z.string().optional(),
     MAIL_FROM: z.string().default('Decant <no-reply@decant.test>'),
     TRUST_PROXY: z.string().optional(),
@@ -44,6 +45,8 @@ export interface Config {
   oidc: { issuer: string; clientId: string; clientSecret: string; isLocalFake: boolean };
   sessionSecret: string;
   smtpUrl: string;
+  /** The local mail inbox's web page (development and demo only; absent with SMTP_URL). */
+  mailInboxUrl: string | null;
   mailFrom: string;
   /** Express `trust proxy`: a hop count, true/false, or addresses and subnets. */
   trustProxy: number | boolean | string | undefined;
@@ -96,6 +99,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     oidc: { issuer, clientId: env.OIDC_CLIENT_ID, clientSecret: env.OIDC_CLIENT_SECRET, isLocalFake },
     sessionSecret: env.SESSION_SECRET ?? 'decant-local-development-session-secret',
     smtpUrl: env.SMTP_URL ?? `smtp://127.0.0.1:${env.SMTP_PORT}`,
+    mailInboxUrl: env.SMTP_URL ? null : `http://127.0.0.1:${env.MAIL_INBOX_PORT}`,
     mailFrom: env.MAIL_FROM,
     trustProxy: parseTrustProxy(env.TRUST_PROXY),
     demo: env.DEMO ? env.DEMO === 'true' : isLocalFake,

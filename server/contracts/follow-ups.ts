@@ -28,4 +28,6 @@ export interface FollowUpView {
   closedAt: string | null;
   closingNote: string | null;
   hasClosingFile: boolean;
+  /** Its mails: sent, still being tried, and given up (not delivered). */
+  mail: { sent: number; pending: number; failed: number };
 }

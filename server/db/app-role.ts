@@ -21,6 +21,10 @@ export async function grantAppRole(dataSource: DataSource, role: string): Promis
     // Signed revisions and amendments are appended, never changed (their triggers refuse it too).
     `REVOKE UPDATE, DELETE, TRUNCATE ON period_signature, period_amendment FROM ${name}`,
     `REVOKE ALL ON migrations FROM ${name}`,
+    // The job queue's schema: the app queues and works jobs; the owner created and migrates it.
+    `GRANT USAGE ON SCHEMA pgboss TO ${name}`,
+    `GRANT SELECT, INSERT, UPDATE, DELETE ON ALL TABLES IN SCHEMA pgboss TO ${name}`,
+    `GRANT EXECUTE ON ALL FUNCTIONS IN SCHEMA pgboss TO ${name}`,
   ]) {
     await dataSource.query(statement);
   }

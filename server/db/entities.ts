@@ -28,6 +28,9 @@ import { TrailChainHead } from '../kernel/trail/trail-chain-head.entity.js';
 import { TrailEntry } from '../kernel/trail/trail-entry.entity.js';
 
 /** Every table's entity, listed explicitly so the DataSource needs no glob that differs between tsx and a build. */
+import { MailOutbox } from '../features/notices/mail-outbox.entity.js';
+import { MailPreferenceRow } from '../kernel/mail/mail-preference.entity.js';
+
 export const entities = [
   Company,
   Site,
@@ -57,4 +60,6 @@ export const entities = [
   PeriodAmendment,
   PeriodSignature,
   ImportRun,
+  MailOutbox,
+  MailPreferenceRow,
 ];

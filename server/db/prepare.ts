@@ -1,3 +1,4 @@
+import { ensureQueues } from '../kernel/jobs/queues.js';
 import { grantAppRole } from './app-role.js';
 import { createDataSource } from './data-source.js';
 import { seedDemo, type SeedMode } from './seed/seed-demo.js';
@@ -22,10 +23,12 @@ export async function prepareDatabase(
   try {
     if (options.reset) {
       await dataSource.query('DROP SCHEMA public CASCADE');
+      await dataSource.query('DROP SCHEMA IF EXISTS pgboss CASCADE');
       await dataSource.query('CREATE SCHEMA public');
     }
     const applied = await dataSource.runMigrations({ transaction: 'each' });
     if (applied.length > 0) console.log(`Applied migrations: ${applied.map((m) => m.name).join(', ')}`);
+    await ensureQueues(url);
     const appRole = options.appDatabaseUrl ? decodeURIComponent(new URL(options.appDatabaseUrl).username) : null;
     if (appRole && appRole !== decodeURIComponent(new URL(url).username)) await grantAppRole(dataSource, appRole);
     if (options.seed) console.log(seedOutcomes[await seedDemo(dataSource, options.seed, { signOff: options.signOff ?? true })]);

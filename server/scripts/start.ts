@@ -7,7 +7,7 @@ import { localDatabase } from './local-database.js';
 import { run, startCommand, startTypeScript, stopChildren } from './processes.js';
 
 // `npm start` (and `npm run dev` with --dev): database, migrations, seed, then the test identity
-// provider, the SMTP fake and the app, each in its own process. Ctrl-C stops all of them.
+// provider, the mail inbox and the app, each in its own process. Ctrl-C stops all of them.
 const projectDir = resolve(import.meta.dirname, '../..');
 const dev = process.argv.includes('--dev');
 const config = loadConfig();
@@ -18,7 +18,10 @@ const appUrl = dev ? `http://127.0.0.1:${vitePort}` : config.appUrl;
 const ports = [{ port: config.port, name: 'the app' }];
 if (config.oidc.isLocalFake && !process.env.OIDC_ISSUER)
   ports.push({ port: Number(new URL(config.oidc.issuer).port), name: 'the test identity provider' });
-if (!process.env.SMTP_URL) ports.push({ port: Number(new URL(config.smtpUrl).port), name: 'the SMTP fake' });
+if (config.mailInboxUrl) {
+  ports.push({ port: Number(new URL(config.smtpUrl).port), name: 'the mail inbox (SMTP)' });
+  ports.push({ port: Number(new URL(config.mailInboxUrl).port), name: 'the mail inbox (web)' });
+}
 if (dev) ports.push({ port: vitePort, name: 'Vite' });
 await waitForFreePorts(ports, config.host);
 
@@ -48,7 +51,7 @@ const shared = {
 if (config.oidc.isLocalFake && !process.env.OIDC_ISSUER) {
   startTypeScript('idp/main.ts', { APP_URLS: appUrl, IDP_PORT: String(new URL(config.oidc.issuer).port) });
 }
-startTypeScript('server/dev/smtp-fake-main.ts', {});
+if (config.mailInboxUrl) startTypeScript('server/dev/mail-inbox-main.ts', {});
 // Production mode needs a session secret; the local demo uses a fixed one unless one is set.
 startTypeScript('server/index.ts', { ...shared, SESSION_SECRET: config.sessionSecret }, dev ? ['--watch'] : []);
 if (dev) startCommand(resolve(projectDir, 'node_modules/.bin/vite'), ['--port', String(vitePort), '--strictPort'], {});
@@ -60,7 +63,8 @@ function demoAccounts(): string {
   return `\n  Demo accounts (password: ${demoPassword})\n${lines.join('\n')}\n`;
 }
 
-setTimeout(() => console.log(`\n  Decant is running at ${appUrl}\n${demoAccounts()}\n  Press Ctrl-C to stop.`), 2500);
+const inboxLine = config.mailInboxUrl ? `\n  Mail it sends: ${config.mailInboxUrl}\n` : '';
+setTimeout(() => console.log(`\n  Decant is running at ${appUrl}\n${inboxLine}${demoAccounts()}\n  Press Ctrl-C to stop.`), 2500);
 
 let stopping = false;
 async function stop(): Promise<void> {

@@ -14,6 +14,7 @@ import { ImportRuns1796248800000 } from './1796248800000-ImportRuns.js';
 import { PeriodPacks1796252400000 } from './1796252400000-PeriodPacks.js';
 import { PeriodLockFastPath1796256000000 } from './1796256000000-PeriodLockFastPath.js';
 import { PeriodPackWorkbooks1796259600000 } from './1796259600000-PeriodPackWorkbooks.js';
+import { Notices1796263200000 } from './1796263200000-Notices.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -33,4 +34,5 @@ export const migrations = [
   PeriodPacks1796252400000,
   PeriodLockFastPath1796256000000,
   PeriodPackWorkbooks1796259600000,
+  Notices1796263200000,
 ];

@@ -11,7 +11,10 @@ type FollowUpFields = Pick<
   'id' | 'siteId' | 'kind' | 'sourceEntity' | 'sourceId' | 'title' | 'dueAt' | 'status' | 'closedAt' | 'closingNote' | 'closingFileId'
 >;
 
-const view = (row: FollowUpFields): FollowUpView => ({
+type MailCounts = FollowUpView['mail'];
+const noMail: MailCounts = { sent: 0, pending: 0, failed: 0 };
+
+const view = (row: FollowUpFields, mail: MailCounts = noMail): FollowUpView => ({
   id: row.id,
   siteId: row.siteId,
   kind: row.kind,
@@ -23,6 +26,7 @@ const view = (row: FollowUpFields): FollowUpView => ({
   closedAt: row.closedAt?.toISOString() ?? null,
   closingNote: row.closingNote,
   hasClosingFile: row.closingFileId !== null,
+  mail,
 });
 
 interface FollowUpRow {
@@ -37,6 +41,7 @@ interface FollowUpRow {
   closed_at: Date | null;
   closing_note: string | null;
   closing_file_id: string | null;
+  mail: MailCounts | null;
 }
 
 // Raw SQL: the page and its count over one filter, read at once (server/db/page.ts).
@@ -44,7 +49,9 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
   return queryPage(
     db,
     {
-      select: 'SELECT * FROM follow_up',
+      select: `SELECT follow_up.*, (SELECT json_build_object('sent', count(*) FILTER (WHERE m.status = 'sent'),
+                'pending', count(*) FILTER (WHERE m.status = 'pending'), 'failed', count(*) FILTER (WHERE m.status = 'failed'))
+                FROM mail_outbox m WHERE m.follow_up_id = follow_up.id) AS mail FROM follow_up`,
       countFrom: 'FROM follow_up',
       where: `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`,
       order: `(status = 'open') DESC, due_at ${query.sortDesc ? 'DESC' : 'ASC'}`,
@@ -52,19 +59,22 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
     },
     query,
     (row: FollowUpRow) =>
-      view({
-        id: row.id,
-        siteId: row.site_id,
-        kind: row.kind,
-        sourceEntity: row.source_entity,
-        sourceId: row.source_id,
-        title: row.title,
-        dueAt: row.due_at,
-        status: row.status,
-        closedAt: row.closed_at,
-        closingNote: row.closing_note,
-        closingFileId: row.closing_file_id,
-      }),
+      view(
+        {
+          id: row.id,
+          siteId: row.site_id,
+          kind: row.kind,
+          sourceEntity: row.source_entity,
+          sourceId: row.source_id,
+          title: row.title,
+          dueAt: row.due_at,
+          status: row.status,
+          closedAt: row.closed_at,
+          closingNote: row.closing_note,
+          closingFileId: row.closing_file_id,
+        },
+        row.mail ?? noMail,
+      ),
   );
 }
 

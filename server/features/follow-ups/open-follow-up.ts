@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import { mailFollowUpOpened } from '../notices/follow-up-mail.js';
 
 export interface FollowUpToOpen {
   siteId: string;
@@ -9,11 +10,16 @@ export interface FollowUpToOpen {
   dueAt: Date;
 }
 
-/** Opens a follow-up once: a second call for the same kind and source changes nothing. */
+/**
+ * Opens a follow-up once: a second call for the same kind and source changes nothing. A new one
+ * that is news at once (a violation's notice, a signed copy overdue) queues its mail in the same
+ * transaction.
+ */
 export async function openFollowUp(manager: EntityManager, followUp: FollowUpToOpen): Promise<void> {
-  await manager.query(
+  const [opened]: Array<{ id: string }> = await manager.query(
     `INSERT INTO follow_up (site_id, kind, source_entity, source_id, title, due_at) VALUES ($1, $2, $3, $4, $5, $6)
-     ON CONFLICT (kind, source_entity, source_id) DO NOTHING`,
+     ON CONFLICT (kind, source_entity, source_id) DO NOTHING RETURNING id`,
     [followUp.siteId, followUp.kind, followUp.sourceEntity, followUp.sourceId, followUp.title, followUp.dueAt],
   );
+  if (opened) await mailFollowUpOpened(manager, { ...followUp, id: opened.id });
 }

@@ -34,6 +34,7 @@ import {
 } from './sign-off.repository.js';
 import { buildPeriodPack } from '../reports/period-pack.service.js';
 import { summarise } from './summarise.js';
+import { mailPeriodSigned } from '../notices/period-signed-mail.js';
 
 const sha256 = (value: unknown) => createHash('sha256').update(stableStringify(value)).digest('hex');
 
@@ -240,6 +241,7 @@ export async function signWithin(manager: EntityManager, user: Signatory, period
       signerTitle: request.signerTitle,
     },
   });
+  await mailPeriodSigned(manager, period, { revision: signature.revision, signerName: request.signerName });
 }
 
 /** Opens an amendment on a signed period inside the caller's transaction; its inputs unlock for it. */

@@ -1,0 +1,81 @@
+import type { Transporter } from 'nodemailer';
+import type { DataSource } from 'typeorm';
+import type { MailKind } from '../../contracts/mail.js';
+import type { MailContent } from './outbox.js';
+import { renderMail } from './render-mail.js';
+import { unsubscribeToken } from './unsubscribe-token.js';
+
+export interface MailSettings {
+  transport: Transporter;
+  from: string;
+  appUrl: string;
+  secret: string;
+}
+
+/** After this many refusals a mail is given up and shown as not delivered on its follow-up. */
+export const MAX_ATTEMPTS = 8;
+/** 30 s, 1 min, 2 min, … up to 6 hours between attempts. */
+export const retryDelaySeconds = (attempts: number) => Math.min(30 * 2 ** (attempts - 1), 6 * 3600);
+
+interface Claimed {
+  id: string;
+  kind: MailKind;
+  user_id: string | null;
+  recipient: string;
+  params: MailContent;
+  attempts: number;
+}
+
+/**
+ * Sends what is due in the outbox, one mail per short transaction: the row is claimed with
+ * FOR UPDATE SKIP LOCKED, so several instances delivering at once never send the same mail
+ * twice, and a mail is marked sent only once the SMTP server took it (a crash in between sends it
+ * again: at least once, never lost). A refusal schedules the next attempt with backoff.
+ */
+export async function deliverPendingMail(db: DataSource, settings: MailSettings, limit = 200): Promise<{ sent: number; failed: number }> {
+  let sent = 0;
+  let failed = 0;
+  for (let i = 0; i < limit; i++) {
+    const outcome = await db.transaction(async (manager) => {
+      const [mail]: Claimed[] = await manager.query(
+        `SELECT id, kind, user_id, recipient, params, attempts FROM mail_outbox
+          WHERE status = 'pending' AND next_attempt_at <= now() ORDER BY next_attempt_at LIMIT 1 FOR UPDATE SKIP LOCKED`,
+      );
+      if (!mail) return 'empty' as const;
+      const unsubscribe = `${settings.appUrl}/api/mail/unsubscribe?token=${mail.user_id ? unsubscribeToken(mail.user_id, mail.kind, settings.secret) : ''}`;
+      const message = renderMail(mail.params, mail.kind, { record: `${settings.appUrl}${mail.params.path}`, unsubscribe });
+      try {
+        await settings.transport.sendMail({
+          from: settings.from,
+          to: mail.recipient,
+          ...message,
+          headers: { 'List-Unsubscribe': `<${unsubscribe}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
+        });
+        await manager.query(
+          `UPDATE mail_outbox SET status = 'sent', sent_at = now(), attempts = attempts + 1, last_error = NULL WHERE id = $1`,
+          [mail.id],
+        );
+        return 'sent' as const;
+      } catch (error) {
+        const attempts = mail.attempts + 1;
+        await manager.query(
+          `UPDATE mail_outbox SET attempts = $2, last_error = $3, status = $4, next_attempt_at = now() + make_interval(secs => $5) WHERE id = $1`,
+          [
+            mail.id,
+            attempts,
+            String((error as Error).message ?? error).slice(0, 500),
+            attempts >= MAX_ATTEMPTS ? 'failed' : 'pending',
+            retryDelaySeconds(attempts),
+          ],
+        );
+        return 'refused' as const;
+      }
+    });
+    if (outcome === 'empty') break;
+    if (outcome === 'sent') sent++;
+    else failed++;
+    // An SMTP server that refused one mail is likely down: leave the rest for the next run.
+    if (outcome === 'refused') break;
+  }
+  return { sent, failed };
+}

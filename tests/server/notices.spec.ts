@@ -1,0 +1,224 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startMailInbox, type MailInbox } from '../../server/dev/mail-inbox.js';
+import { openFollowUp } from '../../server/features/follow-ups/open-follow-up.js';
+import { queueDailyDigests } from '../../server/features/notices/daily-digest.js';
+import { deliverPendingMail, type MailSettings } from '../../server/kernel/mail/deliver-mail.js';
+import { queueMail } from '../../server/kernel/mail/outbox.js';
+import { siteRecipients } from '../../server/kernel/mail/recipients.js';
+import { createMailTransport } from '../../server/kernel/mail/transport.js';
+import { unsubscribeToken } from '../../server/kernel/mail/unsubscribe-token.js';
+import { certificateBody, demoIds } from '../fixtures/lab.js';
+import { startTestApp, type TestApp } from '../helpers/test-app.js';
+
+// Ports of this suite's own mail inbox, apart from the ones `npm start` uses.
+const SMTP_PORT = 4392;
+const WEB_PORT = 4393;
+
+/**
+ * Notices by mail, read back from a real SMTP server with an inbox (maildev): the outbox is
+ * written with the change that causes it and delivered by the delivery job, once per event and
+ * recipient, delayed but never lost while SMTP is down.
+ */
+describe('notices by mail', () => {
+  let t: TestApp;
+  let ids: Awaited<ReturnType<typeof demoIds>>;
+  let coordinator: string;
+  let inbox: MailInbox;
+  let mail: MailSettings;
+  let periodId: string;
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    ids = await demoIds(t.dataSource);
+    coordinator = await t.sessionFor('coordinator@decant.test');
+    inbox = await startMailInbox(SMTP_PORT, WEB_PORT);
+    mail = {
+      transport: createMailTransport(`smtp://127.0.0.1:${SMTP_PORT}`),
+      from: 'Decant <no-reply@decant.test>',
+      appUrl: 'http://app.test',
+      secret: t.config.sessionSecret,
+    };
+    // What the demo seed queued is sent first, so each test reads only its own mail.
+    while ((await deliverPendingMail(t.dataSource, mail)).sent > 0);
+
+    const point = await request(t.app)
+      .post(`/api/sites/${ids.north}/discharge-points`)
+      .set('cookie', coordinator)
+      .send({ code: 'OF-NT', name: 'Notice outfall', receiving: 'sewer' })
+      .expect(201);
+    const permit = await request(t.app)
+      .post('/api/permits')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        kind: 'pretreatment',
+        number: 'NT-0001',
+        issuingAuthority: 'Basin Water Authority',
+        effectiveFrom: '2026-02-01',
+        reportingFrequency: 'monthly',
+        reportDueDays: 28,
+        nonDetectPolicy: 'zero',
+      })
+      .expect(201);
+    await request(t.app)
+      .post(`/api/permits/${permit.body.id}/limits`)
+      .set('cookie', coordinator)
+      .send({
+        dischargePointId: point.body.id,
+        parameterId: ids.hem,
+        statistic: 'daily-maximum',
+        value: 20,
+        unit: 'mg/L',
+        frequencyCount: 1,
+        frequencyPer: 'month',
+        sampleType: 'grab',
+      })
+      .expect(201);
+    const body = certificateBody(ids, { receivedOn: '2026-02-12' });
+    body.samples[0]!.dischargePointId = point.body.id;
+    body.samples[0]!.collectedAt = '2026-02-10T09:30';
+    body.samples[0]!.results[0]!.value = '31';
+    body.samples[0]!.results[0]!.analysedAt = '2026-02-11T10:00';
+    await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(body).expect(201);
+    const periods = await request(t.app).get(`/api/periods?permitId=${permit.body.id}`).set('cookie', coordinator).expect(200);
+    periodId = periods.body.items.find((p: { startsOn: string }) => p.startsOn === '2026-02-01').id;
+  });
+  afterAll(async () => {
+    await inbox?.stop();
+    await t.close();
+  });
+
+  const messagesAbout = async (text: string) => (await inbox.messages()).filter((m) => m.subject.includes(text));
+
+  it('mails a violation to each coordinator of the site at once, and to nobody else', async () => {
+    await request(t.app).post(`/api/periods/${periodId}/compile`).set('cookie', coordinator).expect(200);
+    const coordinators = await siteRecipients(t.dataSource, ids.north, ['coordinator']);
+    expect(coordinators.length).toBeGreaterThan(0);
+    const { sent } = await deliverPendingMail(t.dataSource, mail);
+    expect(sent).toBeGreaterThan(0);
+    // 40 CFR 403.12(g)(2): the control authority is to be told within 24 hours of becoming aware.
+    const violation = (await messagesAbout('OF-NT')).filter((m) => m.subject.startsWith('Violation'));
+    expect(violation.map((m) => m.to[0]!.address).sort()).toEqual(coordinators.map((c) => c.email).sort());
+    const [first] = violation;
+    expect(first!.text).toContain('http://app.test/follow-ups?siteId=');
+    expect(first!.text).toContain('over its permit limit');
+    // RFC 2369 and RFC 8058: the way out is in the headers too, for the mail program's own button.
+    const source = (await inbox.source(first!.id)).replace(/\r?\n[ \t]+/g, ' ');
+    expect(source).toMatch(/^List-Unsubscribe: <http:\/\/app\.test\/api\/mail\/unsubscribe\?token=[\w.-]+>\r?$/m);
+    expect(source).toMatch(/^List-Unsubscribe-Post: List-Unsubscribe=One-Click\r?$/m);
+    // Compiling again opens nothing new and mails nobody again.
+    await request(t.app).post(`/api/periods/${periodId}/compile`).set('cookie', coordinator).expect(200);
+    await deliverPendingMail(t.dataSource, mail);
+    expect((await messagesAbout('OF-NT')).filter((m) => m.subject.startsWith('Violation'))).toHaveLength(violation.length);
+    // The follow-up shows its mail as sent.
+    const list = await request(t.app)
+      .get(`/api/follow-ups?siteId=${ids.north}&status=open&pageSize=100`)
+      .set('cookie', coordinator)
+      .expect(200);
+    const notice = list.body.items.find(
+      (f: { kind: string; title: string }) => f.kind === 'notify-control-authority' && f.title.includes('OF-NT'),
+    );
+    expect(notice.mail).toEqual({ sent: coordinators.length, pending: 0, failed: 0 });
+  });
+
+  it('keeps mail while SMTP is down and delivers each once when it is back, however many deliver at once', async () => {
+    const people = await siteRecipients(t.dataSource, ids.north, ['coordinator']);
+    await inbox.stop();
+    await t.dataSource.transaction((manager) =>
+      queueMail(
+        manager,
+        {
+          eventKey: 'test:smtp-down',
+          kind: 'deadline',
+          content: { subject: 'Outage test', lines: ['While SMTP was down'], path: '/follow-ups', linkText: 'Open' },
+        },
+        people,
+      ),
+    );
+    const down = await deliverPendingMail(t.dataSource, mail);
+    expect(down.sent).toBe(0);
+    const [row] = await t.dataSource.query(
+      `SELECT status, attempts, next_attempt_at > now() AS later, last_error FROM mail_outbox WHERE event_key = 'test:smtp-down' LIMIT 1`,
+    );
+    expect(row).toMatchObject({ status: 'pending', attempts: 1, later: true });
+    expect(row.last_error).toBeTruthy();
+
+    inbox = await startMailInbox(SMTP_PORT, WEB_PORT);
+    await t.dataSource.query(`UPDATE mail_outbox SET next_attempt_at = now() WHERE event_key = 'test:smtp-down'`);
+    // Two instances' delivery jobs at once: the row claim (SKIP LOCKED) lets each mail go once.
+    const [a, b] = await Promise.all([deliverPendingMail(t.dataSource, mail), deliverPendingMail(t.dataSource, mail)]);
+    expect(a.sent + b.sent).toBe(people.length);
+    const received = await messagesAbout('Outage test');
+    expect(received.map((m) => m.to[0]!.address).sort()).toEqual(people.map((p) => p.email).sort());
+  });
+
+  it('lists in the daily digest what is due and overdue at the person’s own sites', async () => {
+    const now = new Date();
+    await t.dataSource.transaction((manager) =>
+      openFollowUp(manager, {
+        siteId: ids.east,
+        kind: 'missed-sample',
+        sourceEntity: 'missed-monitoring',
+        sourceId: '00000000-0000-4000-8000-00000000d1e5',
+        title: 'Missed sample: digest test at OF-002',
+        dueAt: new Date(now.getTime() + 2 * 24 * 3600 * 1000),
+      }),
+    );
+    await queueDailyDigests(t.dataSource, now);
+    const digestOf = async (email: string) => {
+      const [row] = await t.dataSource.query(
+        `SELECT m.params FROM mail_outbox m JOIN app_user u ON u.id = m.user_id WHERE m.kind = 'digest' AND u.email = $1 AND m.event_key = $2`,
+        [
+          email,
+          `digest:${(await t.dataSource.query(`SELECT id FROM app_user WHERE email = $1`, [email]))[0].id}:${now.toISOString().slice(0, 10)}`,
+        ],
+      );
+      return ((row?.params.lines ?? []) as string[]).join('\n');
+    };
+    const expected: Array<{ title: string }> = await t.dataSource.query(
+      `SELECT title FROM follow_up WHERE site_id = $1 AND status = 'open' AND due_at <= $2::timestamptz + interval '7 days'`,
+      [ids.east, now],
+    );
+    const east = await digestOf('coordinator.east@decant.test');
+    for (const { title } of expected) expect(east).toContain(title);
+    expect(east).toContain('Missed sample: digest test at OF-002');
+    // The east-only coordinator hears nothing of the north site's violation; the one of both sites does.
+    expect(east).not.toContain('OF-NT');
+    expect(await digestOf('coordinator@decant.test')).toContain('OF-NT');
+    // A second run the same day queues no second digest.
+    expect(await queueDailyDigests(t.dataSource, now)).toBe(0);
+  });
+
+  it('turns a kind off from the link in a mail without signing in, and refuses a forged or expired link', async () => {
+    const [operator] = await t.dataSource.query(`SELECT id FROM app_user WHERE email = 'operator@decant.test'`);
+    const [boss] = await t.dataSource.query(`SELECT id FROM app_user WHERE email = 'coordinator@decant.test'`);
+    const before = await t.dataSource.query(`SELECT count(*)::int AS n FROM mail_preference`);
+
+    const forged = `${unsubscribeToken(operator.id, 'upkeep', 'not-the-secret').split('.')[0]}.${'A'.repeat(43)}`;
+    const refused = await request(t.app).post('/api/mail/unsubscribe').type('form').send({ token: forged }).expect(400);
+    expect(refused.text).toContain('Nothing was changed');
+    const expired = unsubscribeToken(operator.id, 'upkeep', t.config.sessionSecret, new Date(Date.now() - 91 * 24 * 3600 * 1000));
+    expect((await request(t.app).get(`/api/mail/unsubscribe?token=${expired}`).expect(400)).text).toContain('expired');
+    expect((await t.dataSource.query(`SELECT count(*)::int AS n FROM mail_preference`))[0].n).toBe(before[0].n);
+
+    const token = unsubscribeToken(operator.id, 'upkeep', t.config.sessionSecret);
+    expect((await request(t.app).get(`/api/mail/unsubscribe?token=${token}`).expect(200)).text).toContain('Stop these mails');
+    // RFC 8058 one-click: a POST with List-Unsubscribe=One-Click, the token in the link.
+    await request(t.app).post(`/api/mail/unsubscribe?token=${token}`).type('form').send({ 'List-Unsubscribe': 'One-Click' }).expect(200);
+    const operatorCookie = await t.sessionFor('operator@decant.test');
+    const prefs = await request(t.app).get('/api/mail/preferences').set('cookie', operatorCookie).expect(200);
+    expect(prefs.body.items.find((p: { kind: string }) => p.kind === 'upkeep').delivery).toBe('off');
+
+    // A coordinator cannot turn violations off, by link or on screen.
+    await request(t.app)
+      .post(`/api/mail/unsubscribe?token=${unsubscribeToken(boss.id, 'violation', t.config.sessionSecret)}`)
+      .expect(409);
+    const put = await request(t.app)
+      .put('/api/mail/preferences')
+      .set('cookie', coordinator)
+      .send({ items: [{ kind: 'violation', delivery: 'off' }] })
+      .expect(400);
+    expect(put.body.error.fields).toHaveProperty('items.0.delivery');
+  });
+});
