@@ -131,6 +131,7 @@ export const routes: RouteRecordRaw[] = [
         component: () => import('@/views/PeopleView.vue'),
         meta: { action: 'users.read', title: 'People and access' },
       },
+      { path: 'mail', name: 'mail', component: () => import('@/views/MailSettingsView.vue'), meta: { title: 'Mail' } },
       {
         path: 'waiting-for-access',
         name: 'no-role',

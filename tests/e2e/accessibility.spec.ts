@@ -54,6 +54,7 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
       { name: 'flow-readings', path: '/periods/flow-readings', as: coordinator },
       { name: 'reports', path: '/reports', as: 'auditor@decant.test' },
       { name: 'follow-ups', path: '/follow-ups', as: coordinator },
+      { name: 'mail', path: '/mail', as: coordinator },
       { name: 'setup', path: '/setup', as: coordinator },
       {
         name: 'limit-version',

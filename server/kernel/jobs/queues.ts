@@ -10,6 +10,12 @@ export const queues = {
 } as const;
 export type QueueName = (typeof queues)[keyof typeof queues];
 
+/**
+ * pg-boss's own queue through which its cron clock sends scheduled jobs: created at start by
+ * whoever starts it, which the app's role cannot, and pg-boss ignores that failure silently.
+ */
+const CRON_QUEUE = '__pgboss__send-it';
+
 /** When each runs (cron, UTC). The digest goes out at 11:00 UTC, early morning in US time zones. */
 export const schedules: Record<QueueName, string> = {
   'create-periods': '0 * * * *',
@@ -28,7 +34,7 @@ export async function ensureQueues(ownerUrl: string): Promise<void> {
   boss.on('error', (error) => console.error('Job queue:', error));
   await boss.start();
   try {
-    for (const name of Object.values(queues)) if (!(await boss.getQueue(name))) await boss.createQueue(name);
+    for (const name of [...Object.values(queues), CRON_QUEUE]) if (!(await boss.getQueue(name))) await boss.createQueue(name);
   } finally {
     await boss.stop({ graceful: false, wait: true });
   }
