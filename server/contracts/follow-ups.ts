@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { localDateTime } from './fields.js';
 import { uuid } from './fields.js';
 import { PageQuery } from './paging.js';
 
@@ -15,6 +16,13 @@ export type FollowUpQuery = z.output<typeof FollowUpQuery>;
 export const CloseFollowUpRequest = z.object({ note: z.string().trim().min(3, 'Say how it was closed').max(2000) });
 export type CloseFollowUpRequest = z.output<typeof CloseFollowUpRequest>;
 
+/** A coordinator's correction of when the site became aware: the deadline moves with it. */
+export const CorrectAwarenessRequest = z.object({
+  awareAt: localDateTime,
+  reason: z.string().trim().min(3, 'Say why the time is corrected').max(500),
+});
+export type CorrectAwarenessRequest = z.output<typeof CorrectAwarenessRequest>;
+
 /** Anything with a deadline, opened by the server's rules. */
 export interface FollowUpView {
   id: string;
@@ -28,6 +36,9 @@ export interface FollowUpView {
   closedAt: string | null;
   closingNote: string | null;
   hasClosingFile: boolean;
+  /** For a violation's notice: when the site became aware (the clock's start) and from what. */
+  awareAt: string | null;
+  awareSource: string | null;
   /** Its mails: sent, still being tried, and given up (not delivered). */
   mail: { sent: number; pending: number; failed: number };
 }

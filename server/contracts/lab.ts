@@ -56,6 +56,11 @@ export const CertificateFields = z.object({
   labAccreditationNumber: z.string().trim().min(1, 'Enter the accreditation number').max(60),
   reportNumber: z.string().trim().min(1, 'Enter the report number').max(60),
   receivedOn: isoDate,
+  receivedTime: z
+    .string()
+    .regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'Use the form HH:MM (site time)')
+    .nullable()
+    .default(null),
   qcBatches: z.array(QcBatchInput).max(50).default([]),
   samples: z.array(SampleInput).min(1, 'A certificate needs at least one sample').max(200),
 });
@@ -143,6 +148,8 @@ export interface CertificateSummary {
 
 export interface CertificateDetail extends CertificateSummary {
   labAccreditationNumber: string;
+  /** The site's local time of day it was received (HH:MM), when entered. */
+  receivedTime: string | null;
   /** When it was entered: corrections after the first 24 hours need a reason. */
   enteredAt: string;
   timeZone: string;

@@ -20,6 +20,10 @@ export const Exceedance = z.object({
   percentOver: doc(z.number(), 'How far past the limit (above a maximum, below a minimum), in % of the limit, to one decimal'),
   resultIds: doc(z.array(z.string()), 'The lab results (or flow readings) behind the figure'),
   certificateIds: doc(z.array(z.string()), 'The certificates of those results'),
+  awareCertificateIds: doc(
+    z.array(z.string()).optional(),
+    'The certificates that made the site aware: for a monthly average, those of the day that took it over (40 CFR 403.12(g)(2))',
+  ),
 });
 export type Exceedance = z.infer<typeof Exceedance>;
 

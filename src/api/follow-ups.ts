@@ -1,4 +1,4 @@
-import type { FollowUpView } from '@contracts/follow-ups.js';
+import type { CorrectAwarenessRequest, FollowUpView } from '@contracts/follow-ups.js';
 import type { Page } from '@contracts/paging.js';
 import { api, upload, type Query } from './client';
 
@@ -7,4 +7,5 @@ export const followUpsApi = {
   close: (id: string, note: string, evidence: File | null) =>
     upload<FollowUpView>('POST', `/follow-ups/${id}/close`, { note, file: evidence }),
   fileUrl: (id: string) => `/api/follow-ups/${id}/file`,
+  correctAwareness: (id: string, body: CorrectAwarenessRequest) => api.post<FollowUpView>(`/follow-ups/${id}/aware-since`, body),
 };

@@ -15,6 +15,7 @@ import { PeriodPacks1796252400000 } from './1796252400000-PeriodPacks.js';
 import { PeriodLockFastPath1796256000000 } from './1796256000000-PeriodLockFastPath.js';
 import { PeriodPackWorkbooks1796259600000 } from './1796259600000-PeriodPackWorkbooks.js';
 import { Notices1796263200000 } from './1796263200000-Notices.js';
+import { AwarenessTime1796266800000 } from './1796266800000-AwarenessTime.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -35,4 +36,5 @@ export const migrations = [
   PeriodLockFastPath1796256000000,
   PeriodPackWorkbooks1796259600000,
   Notices1796263200000,
+  AwarenessTime1796266800000,
 ];

@@ -104,6 +104,7 @@ export async function seedLab(
           labAccreditationNumber: demoLab.accreditation,
           reportNumber,
           receivedOn: collected.plus({ days: 1 }).toISODate()!,
+          receivedTime: '14:30',
           qcBatches: [
             {
               code: qcCode,

@@ -4,7 +4,7 @@ import { toLimitUnit, type FlowOn, type ToLimitUnit } from './limit-units.js';
 import { monitoringChecker, type MonitoringCheck } from './monitoring.js';
 import { precisionRule, shownFigure } from './shown-precision.js';
 import { sncVerdict, sncWindows } from './significant-noncompliance.js';
-import { dailyMaximum, exceeds, fallsBelow, monthlyAverages, type DayFigure } from './statistics.js';
+import { dailyMaximum, dayThatTookAverageOver, exceeds, fallsBelow, monthlyAverages, type DayFigure } from './statistics.js';
 import type { Exceedance, LimitRow, PeriodSummaryCore } from '../../contracts/periods.js';
 import type { Figure, LimitInput, Measurement, PeriodInput } from './types.js';
 
@@ -78,13 +78,14 @@ function limitRow(limit: LimitInput, span: Span, context: Context): LimitRow {
   const scale = context.scaleFor(limit);
   const rule = precisionRule(limit);
   const shown = (value: Figure | null) => shownFigure(value, rule);
-  const exceedance = (date: string, value: number, measurements: Measurement[]): Exceedance => ({
+  const exceedance = (date: string, value: number, measurements: Measurement[], madeAwareBy = measurements): Exceedance => ({
     date,
     value,
     shownValue: shown(value)!,
     limit: limit.value,
     percentOver: percentPast(value, limit.value, limit.statistic === 'instantaneous-minimum'),
     ...evidence(measurements),
+    awareCertificateIds: [...new Set(madeAwareBy.map((m) => m.certificateId))],
   });
 
   const discharges = context.dischargesOf(limit, span, inPeriod);
@@ -137,13 +138,17 @@ function limitRow(limit: LimitInput, span: Span, context: Context): LimitRow {
       computedValue = monthlyValues.length === 0 ? null : numeric.length === 0 ? '<ML' : Math.max(...numeric);
       exceedances = monthlyValues
         .filter((month) => month.exceeded)
-        .map((month) =>
-          exceedance(
+        .map((month) => {
+          const monthDays = days.filter((day) => day.day.startsWith(month.month));
+          const tipping = dayThatTookAverageOver(monthDays, limit.value);
+          const all = monthDays.flatMap((day) => day.source.measurements);
+          return exceedance(
             month.month,
             month.value as number,
-            days.filter((day) => day.day.startsWith(month.month)).flatMap((day) => day.source.measurements),
-          ),
-        );
+            all,
+            monthDays.find((day) => day.day === tipping)?.source.measurements ?? all,
+          );
+        });
       break;
     }
     case 'instantaneous-maximum':

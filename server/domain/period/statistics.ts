@@ -32,3 +32,22 @@ export function monthlyAverages(days: DayFigure[]): Array<{ month: string; value
 /** "Exceed" is strictly greater than the limit; a "<ML" figure exceeds nothing. */
 export const exceeds = (figure: Figure | null, limit: number) => typeof figure === 'number' && figure > limit;
 export const fallsBelow = (figure: Figure | null, limit: number) => typeof figure === 'number' && figure < limit;
+
+/**
+ * The day whose daily discharge took a monthly average over its limit: walking the month's days
+ * in order, the last day on which the average of the days so far went from within the limit to
+ * over it (from then on it stayed over). Null when the month's average is within the limit.
+ * A site becomes aware of an average's violation with that day's result (40 CFR 403.12(g)(2)).
+ */
+export function dayThatTookAverageOver(days: DayFigure[], limit: number): string | null {
+  let sum = 0;
+  let over = false;
+  let tipping: string | null = null;
+  days.forEach((day, index) => {
+    sum += day.value;
+    const nowOver = sum / (index + 1) > limit;
+    if (nowOver && !over) tipping = day.day;
+    over = nowOver;
+  });
+  return over ? tipping : null;
+}

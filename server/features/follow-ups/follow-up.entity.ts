@@ -53,6 +53,13 @@ export class FollowUp {
   @Column({ type: 'text', name: 'closing_note', nullable: true })
   closingNote: string | null;
 
+  /** For a violation's notice: when the site became aware, the moment its clock runs from. */
+  @Column({ type: 'timestamptz', name: 'aware_at', nullable: true })
+  awareAt: Date | null;
+
+  @Column({ type: 'varchar', name: 'aware_source', length: 300, nullable: true })
+  awareSource: string | null;
+
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;
 

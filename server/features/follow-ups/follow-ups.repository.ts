@@ -8,7 +8,19 @@ type Db = DataSource | EntityManager;
 
 type FollowUpFields = Pick<
   FollowUp,
-  'id' | 'siteId' | 'kind' | 'sourceEntity' | 'sourceId' | 'title' | 'dueAt' | 'status' | 'closedAt' | 'closingNote' | 'closingFileId'
+  | 'id'
+  | 'siteId'
+  | 'kind'
+  | 'sourceEntity'
+  | 'sourceId'
+  | 'title'
+  | 'dueAt'
+  | 'status'
+  | 'closedAt'
+  | 'closingNote'
+  | 'closingFileId'
+  | 'awareAt'
+  | 'awareSource'
 >;
 
 type MailCounts = FollowUpView['mail'];
@@ -26,6 +38,8 @@ const view = (row: FollowUpFields, mail: MailCounts = noMail): FollowUpView => (
   closedAt: row.closedAt?.toISOString() ?? null,
   closingNote: row.closingNote,
   hasClosingFile: row.closingFileId !== null,
+  awareAt: row.awareAt?.toISOString() ?? null,
+  awareSource: row.awareSource,
   mail,
 });
 
@@ -41,6 +55,8 @@ interface FollowUpRow {
   closed_at: Date | null;
   closing_note: string | null;
   closing_file_id: string | null;
+  aware_at: Date | null;
+  aware_source: string | null;
   mail: MailCounts | null;
 }
 
@@ -72,6 +88,8 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
           closedAt: row.closed_at,
           closingNote: row.closing_note,
           closingFileId: row.closing_file_id,
+          awareAt: row.aware_at,
+          awareSource: row.aware_source,
         },
         row.mail ?? noMail,
       ),
@@ -105,6 +123,18 @@ export async function closeFollowUp(
       closingFileId: closing.fileId,
     })
     .where('id = :id', { id })
+    .execute();
+  return view(await manager.findOneByOrFail(FollowUp, { id }));
+}
+
+/** Moves when the site became aware, and the deadline with it by the same amount. */
+export async function saveAwareness(manager: EntityManager, id: string, awareAt: Date, source: string): Promise<FollowUpView> {
+  await manager
+    .createQueryBuilder()
+    .update(FollowUp)
+    .set({ dueAt: () => 'due_at + (CAST(:awareAt AS timestamptz) - aware_at)', awareAt, awareSource: source.slice(0, 300) })
+    .where('id = :id', { id })
+    .setParameters({ awareAt })
     .execute();
   return view(await manager.findOneByOrFail(FollowUp, { id }));
 }

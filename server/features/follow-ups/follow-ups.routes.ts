@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import type { DataSource } from 'typeorm';
-import { CloseFollowUpRequest, FollowUpQuery } from '../../contracts/follow-ups.js';
+import { CloseFollowUpRequest, CorrectAwarenessRequest, FollowUpQuery } from '../../contracts/follow-ups.js';
 import { IdParams } from '../../contracts/params.js';
 import { endpoint } from '../../http/endpoint.js';
 import { singleUpload } from '../../middleware/upload.js';
@@ -17,6 +17,12 @@ export function followUpsRoutes(dataSource: DataSource): Router {
     ...endpoint(
       { action: 'follow-ups.close', params: IdParams, body: CloseFollowUpRequest, before: [singleUpload()] },
       ({ user, params, body, req }) => followUps.close(user, params.id, body, req.file),
+    ),
+  );
+  router.post(
+    '/:id/aware-since',
+    ...endpoint({ action: 'follow-ups.close', params: IdParams, body: CorrectAwarenessRequest }, ({ user, params, body }) =>
+      followUps.correctAwareness(user, params.id, body),
     ),
   );
   router.get(

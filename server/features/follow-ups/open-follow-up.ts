@@ -8,6 +8,9 @@ export interface FollowUpToOpen {
   sourceId: string;
   title: string;
   dueAt: Date;
+  /** For a violation's notices: when the site became aware, and from what. */
+  awareAt?: Date;
+  awareSource?: string;
 }
 
 /**
@@ -17,9 +20,18 @@ export interface FollowUpToOpen {
  */
 export async function openFollowUp(manager: EntityManager, followUp: FollowUpToOpen): Promise<void> {
   const [opened]: Array<{ id: string }> = await manager.query(
-    `INSERT INTO follow_up (site_id, kind, source_entity, source_id, title, due_at) VALUES ($1, $2, $3, $4, $5, $6)
+    `INSERT INTO follow_up (site_id, kind, source_entity, source_id, title, due_at, aware_at, aware_source) VALUES ($1, $2, $3, $4, $5, $6, $7, $8)
      ON CONFLICT (kind, source_entity, source_id) DO NOTHING RETURNING id`,
-    [followUp.siteId, followUp.kind, followUp.sourceEntity, followUp.sourceId, followUp.title, followUp.dueAt],
+    [
+      followUp.siteId,
+      followUp.kind,
+      followUp.sourceEntity,
+      followUp.sourceId,
+      followUp.title,
+      followUp.dueAt,
+      followUp.awareAt ?? null,
+      followUp.awareSource?.slice(0, 300) ?? null,
+    ],
   );
   if (opened) await mailFollowUpOpened(manager, { ...followUp, id: opened.id });
 }

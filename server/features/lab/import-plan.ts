@@ -108,6 +108,8 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
           labAccreditationNumber: data.lab_accreditation_number,
           reportNumber: data.report_number,
           receivedOn: data.received_on,
+          // Files carry no time of receipt: the site became aware when the import was entered.
+          receivedTime: null,
           qcBatches: [],
           samples: [],
         },

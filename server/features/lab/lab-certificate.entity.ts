@@ -31,6 +31,10 @@ export class LabCertificate {
   @Column({ type: 'date', name: 'received_on' })
   receivedOn: string;
 
+  /** The site's local time of day the certificate arrived; the site became aware of its results then. */
+  @Column({ type: 'time', name: 'received_time', precision: 0, nullable: true })
+  receivedTime: string | null;
+
   @Column({ type: 'uuid', name: 'file_id', nullable: true })
   fileId: string | null;
 

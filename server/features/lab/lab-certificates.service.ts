@@ -96,6 +96,7 @@ export class LabCertificatesService {
       labAccreditationNumber: request.labAccreditationNumber,
       reportNumber: request.reportNumber,
       receivedOn: request.receivedOn,
+      receivedTime: request.receivedTime,
       fileId: stored?.id ?? null,
       createdBy: user.id,
     });
@@ -123,6 +124,7 @@ export class LabCertificatesService {
         labAccreditationNumber: request.labAccreditationNumber,
         reportNumber: request.reportNumber,
         receivedOn: request.receivedOn,
+        receivedTime: request.receivedTime,
       });
       await writeCertificateContent(manager, id, { id: before.siteId, timeZone: before.timeZone }, request);
       await computeCertificateFlags(manager, id);

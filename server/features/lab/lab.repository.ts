@@ -161,6 +161,7 @@ export async function loadCertificate(db: Db, id: string): Promise<CertificateDe
     file: file ? { id: file.id, fileName: file.fileName, mediaType: file.mediaType, sizeBytes: file.sizeBytes, sha256: file.sha256 } : null,
     flags: certificate.flags,
     labAccreditationNumber: certificate.labAccreditationNumber,
+    receivedTime: certificate.receivedTime?.slice(0, 5) ?? null,
     enteredAt: certificate.createdAt.toISOString(),
     timeZone: zone,
     qcBatches: batches.map(({ certificateId: _certificateId, certificate: _certificate, ...batch }) => batch),

@@ -1,9 +1,8 @@
-import { In, IsNull, type DataSource, type EntityManager } from 'typeorm';
+import { IsNull, type DataSource, type EntityManager } from 'typeorm';
 import type { PeriodListItem, PeriodStatus, PeriodSummary } from '../../contracts/periods.js';
 import type { GeneratorStatus, ManifestRule } from '../../domain/manifest-deadlines.js';
 import type { ReportingPeriod as PeriodDates } from '../../domain/reporting-periods.js';
 import { Site } from '../../kernel/sites/site.entity.js';
-import { LabCertificate } from '../lab/lab-certificate.entity.js';
 import { Permit } from '../permits/permit.entity.js';
 import { Shipment } from '../shipments/shipment.entity.js';
 import type { PeriodRecord } from './period-input.repository.js';
@@ -136,13 +135,45 @@ export async function periodCounts(db: Db, period: PeriodRecord) {
   };
 }
 
-/** When each certificate was entered: the moment its results became known. */
-export async function certificateEntryTimes(db: Db, certificateIds: string[]): Promise<Map<string, Date>> {
+export interface Awareness {
+  at: Date;
+  /** Where the moment came from, in words, shown on the follow-up. */
+  source: string;
+}
+
+/**
+ * When the site learned each certificate's results: its received day and time at the site, or,
+ * without a time, the moment it was entered in Decant.
+ */
+export async function certificateAwareness(db: Db, certificateIds: string[]): Promise<Map<string, Awareness>> {
   if (certificateIds.length === 0) return new Map();
-  const certificates = await db
-    .getRepository(LabCertificate)
-    .find({ where: { id: In(certificateIds) }, select: { id: true, createdAt: true } });
-  return new Map(certificates.map((certificate) => [certificate.id, certificate.createdAt]));
+  // Raw SQL: the site's zone turns a local day and time into a moment.
+  const rows: Array<{
+    id: string;
+    report_number: string;
+    received_at: Date | null;
+    received_local: string | null;
+    created_at: Date;
+    created_local: string;
+  }> = await db.query(
+    `SELECT c.id, c.report_number, c.created_at,
+              ((c.received_on + c.received_time) AT TIME ZONE s.time_zone) AS received_at,
+              to_char(c.received_on + c.received_time, 'YYYY-MM-DD HH24:MI') AS received_local,
+              to_char(c.created_at AT TIME ZONE s.time_zone, 'YYYY-MM-DD HH24:MI') AS created_local
+         FROM lab_certificate c JOIN site s ON s.id = c.site_id WHERE c.id = ANY($1::uuid[])`,
+    [certificateIds],
+  );
+  return new Map(
+    rows.map((row) => [
+      row.id,
+      row.received_at
+        ? { at: row.received_at, source: `certificate ${row.report_number} received ${row.received_local} (site time)` }
+        : {
+            at: row.created_at,
+            source: `certificate ${row.report_number} entered ${row.created_local} (site time; no time of receipt on it)`,
+          },
+    ]),
+  );
 }
 
 /** Keeps the compiled summary; an open period becomes compiled, a later state stays. Answers the status. */

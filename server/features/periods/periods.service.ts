@@ -4,7 +4,7 @@ import type { CurrentUser } from '../../auth/current-user.js';
 import { daysLeft, manifestDeadlines } from '../../domain/manifest-deadlines.js';
 import { violationObligations } from '../../domain/notification-deadlines.js';
 import { findEquipment } from '../equipment/equipment.repository.js';
-import type { AmendRequest, PeriodListQuery, PeriodSummary, SignRequest, SubmissionRequest } from '../../contracts/periods.js';
+import type { AmendRequest, Exceedance, PeriodListQuery, PeriodSummary, SignRequest, SubmissionRequest } from '../../contracts/periods.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { reportingPeriods } from '../../domain/reporting-periods.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
@@ -22,7 +22,7 @@ import { PeriodSignOffService } from './sign-off.service.js';
 import { summarise } from './summarise.js';
 import {
   allPermitIds,
-  certificateEntryTimes,
+  certificateAwareness,
   findPeriod,
   findPermitCalendar,
   insertMissingPeriods,
@@ -68,16 +68,20 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
     );
   }
   const summary = await summarise(manager, period);
-  // The user became aware of a result when its certificate was entered: one read for all exceedances.
-  const certificateIds = [
-    ...new Set(summary.rows.flatMap((row) => row.exceedances.map((e) => e.certificateIds[0]).filter((id): id is string => Boolean(id)))),
-  ];
-  const enteredAt = await certificateEntryTimes(manager, certificateIds);
+  // The site became aware of a violation with the certificate that showed it (for an average, the
+  // one that took it over): its time of receipt, else its entry. One read for all exceedances.
+  const awareCertificate = (e: Exceedance) => e.awareCertificateIds?.[0] ?? e.certificateIds[0] ?? '';
+  const awareness = await certificateAwareness(
+    manager,
+    [...new Set(summary.rows.flatMap((row) => row.exceedances.map(awareCertificate)))].filter(Boolean),
+  );
   for (const row of summary.rows) {
     for (const exceedance of row.exceedances) {
-      const awareAt =
-        enteredAt.get(exceedance.certificateIds[0] ?? '') ??
-        new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`);
+      const aware = awareness.get(awareCertificate(exceedance)) ?? {
+        at: new Date(`${exceedance.date.length === 7 ? `${exceedance.date}-28` : exceedance.date}T12:00:00Z`),
+        source: 'the day of the result (no certificate found)',
+      };
+      const awareAt = aware.at;
       for (const obligation of violationObligations(period.permitKind, row.statistic, awareAt)) {
         await openFollowUp(manager, {
           // Keyed by point, parameter and day (or month): one sample over a concentration and a
@@ -88,6 +92,8 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
           sourceId: exceedanceSourceId(row, exceedance.date),
           title: `${obligation.title}: ${row.parameter} at ${row.pointCode}, ${exceedance.date} (${obligation.source})`,
           dueAt: obligation.dueAt,
+          awareAt,
+          awareSource: aware.source,
         });
       }
     }

@@ -33,6 +33,7 @@ export const blankDraft = (today: string): Draft => ({
   labAccreditationNumber: '',
   reportNumber: '',
   receivedOn: today,
+  receivedTime: null,
   qcBatches: [],
   samples: [blankSample()],
 });
@@ -67,6 +68,7 @@ export function fromDetail(detail: CertificateDetail): Draft {
     labAccreditationNumber: detail.labAccreditationNumber,
     reportNumber: detail.reportNumber,
     receivedOn: detail.receivedOn,
+    receivedTime: detail.receivedTime,
     qcBatches: detail.qcBatches.map(({ id: _id, flags: _flags, ...batch }) => batch),
     samples: detail.samples.map((sample) => ({
       dischargePointId: sample.dischargePointId,
