@@ -36,6 +36,8 @@ export interface FollowUpView {
   closedAt: string | null;
   closingNote: string | null;
   hasClosingFile: boolean;
+  /** The record that resolved it, when Decant closed it by itself. */
+  closedBy: { entity: string; id: string } | null;
   /** For a violation's notice: when the site became aware (the clock's start) and from what. */
   awareAt: string | null;
   awareSource: string | null;

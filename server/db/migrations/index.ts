@@ -16,6 +16,7 @@ import { PeriodLockFastPath1796256000000 } from './1796256000000-PeriodLockFastP
 import { PeriodPackWorkbooks1796259600000 } from './1796259600000-PeriodPackWorkbooks.js';
 import { Notices1796263200000 } from './1796263200000-Notices.js';
 import { AwarenessTime1796266800000 } from './1796266800000-AwarenessTime.js';
+import { FollowUpsCloseThemselves1796270400000 } from './1796270400000-FollowUpsCloseThemselves.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -37,4 +38,5 @@ export const migrations = [
   PeriodPackWorkbooks1796259600000,
   Notices1796263200000,
   AwarenessTime1796266800000,
+  FollowUpsCloseThemselves1796270400000,
 ];

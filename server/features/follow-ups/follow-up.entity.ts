@@ -53,6 +53,13 @@ export class FollowUp {
   @Column({ type: 'text', name: 'closing_note', nullable: true })
   closingNote: string | null;
 
+  /** The record whose change resolved it, when Decant closed it by itself (a shipment, a certificate, a check). */
+  @Column({ type: 'varchar', name: 'closed_by_entity', length: 40, nullable: true })
+  closedByEntity: string | null;
+
+  @Column({ type: 'uuid', name: 'closed_by_id', nullable: true })
+  closedById: string | null;
+
   /** For a violation's notice: when the site became aware, the moment its clock runs from. */
   @Column({ type: 'timestamptz', name: 'aware_at', nullable: true })
   awareAt: Date | null;

@@ -21,6 +21,8 @@ type FollowUpFields = Pick<
   | 'closingFileId'
   | 'awareAt'
   | 'awareSource'
+  | 'closedByEntity'
+  | 'closedById'
 >;
 
 type MailCounts = FollowUpView['mail'];
@@ -38,6 +40,7 @@ const view = (row: FollowUpFields, mail: MailCounts = noMail): FollowUpView => (
   closedAt: row.closedAt?.toISOString() ?? null,
   closingNote: row.closingNote,
   hasClosingFile: row.closingFileId !== null,
+  closedBy: row.closedByEntity && row.closedById ? { entity: row.closedByEntity, id: row.closedById } : null,
   awareAt: row.awareAt?.toISOString() ?? null,
   awareSource: row.awareSource,
   mail,
@@ -57,6 +60,8 @@ interface FollowUpRow {
   closing_file_id: string | null;
   aware_at: Date | null;
   aware_source: string | null;
+  closed_by_entity: string | null;
+  closed_by_id: string | null;
   mail: MailCounts | null;
 }
 
@@ -90,6 +95,8 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
           closingFileId: row.closing_file_id,
           awareAt: row.aware_at,
           awareSource: row.aware_source,
+          closedByEntity: row.closed_by_entity,
+          closedById: row.closed_by_id,
         },
         row.mail ?? noMail,
       ),

@@ -12,6 +12,8 @@ import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js'
 import { CORRECTION_WINDOW_MS } from '../../contracts/permissions.js';
 import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { checkUpload, claimStoredFiles, sendStoredFile, storeFile, type Upload } from '../../kernel/files/stored-files.js';
+import { closeResolvedFollowUps } from '../follow-ups/close-resolved.js';
+import { exceedancesRepeatedBy } from '../periods/finding-ids.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { writeCertificateContent } from './certificate-content.js';
 import { computeCertificateFlags, limitsInForce, type LimitsInForce } from './lab-flags.service.js';
@@ -35,6 +37,34 @@ const duplicateReport = () =>
   conflict('This site already has a certificate of this lab with this report number', {
     reportNumber: 'Already recorded for this lab at this site',
   });
+
+/**
+ * A certificate with a later sample of the same point and parameter is the repeat sampling a
+ * violation calls for (40 CFR 403.12(g)(2)): its follow-up closes by itself, naming the report.
+ */
+async function closeRepeatedExceedances(
+  manager: EntityManager,
+  user: CurrentUser,
+  certificateId: string,
+  request: CreateLabCertificateRequest,
+) {
+  const sourceIds = request.samples.flatMap((sample) =>
+    sample.results.flatMap((result) =>
+      exceedancesRepeatedBy(
+        { dischargePointId: sample.dischargePointId, parameterId: result.parameterId },
+        sample.collectedAt.slice(0, 10),
+      ),
+    ),
+  );
+  await closeResolvedFollowUps(manager, user, {
+    siteId: request.siteId,
+    kinds: ['repeat-sampling'],
+    sourceEntity: 'exceedance',
+    sourceIds: [...new Set(sourceIds)],
+    resolvedBy: { entity: 'lab-certificate', id: certificateId },
+    note: `the repeat sample's results arrived with certificate ${request.reportNumber}`,
+  });
+}
 
 /** Lab certificates: written whole, in one transaction with their trail entry and their checks. */
 export class LabCertificatesService {
@@ -109,6 +139,7 @@ export class LabCertificatesService {
       });
     await writeCertificateContent(manager, id, site, request, { replacing: false });
     await computeCertificateFlags(manager, id, { limits });
+    await closeRepeatedExceedances(manager, user, id, request);
     return id;
   }
 

@@ -24,3 +24,33 @@ export function findingSourceIds(summary: {
   ]);
   return [...new Set(ids)];
 }
+
+const daysBefore = (day: string, count: number): string[] => {
+  const start = Date.parse(`${day}T00:00:00Z`);
+  return Array.from({ length: count }, (_, i) => new Date(start - (i + 1) * 86_400_000).toISOString().slice(0, 10));
+};
+
+/**
+ * The exceedances a sample collected on `day` can be the repeat sample of: those of the 45 days
+ * before it, and of its month and the two before (a monthly average is keyed by its month). The
+ * repeat is due within 30 days of becoming aware (40 CFR 403.12(g)(2)).
+ */
+export function exceedancesRepeatedBy(row: RowKey, day: string): string[] {
+  const months = [0, 1, 2].map((back) => {
+    const date = new Date(Date.UTC(Number(day.slice(0, 4)), Number(day.slice(5, 7)) - 1 - back, 1));
+    return date.toISOString().slice(0, 7);
+  });
+  return [...daysBefore(day, 45), ...months.slice(1)]
+    .map((date) => exceedanceSourceId(row, date))
+    .concat(
+      // The sample's own month only answers an average whose tipping day came before it.
+      exceedanceSourceId(row, months[0]!),
+    );
+}
+
+/** An upkeep check overdue: keyed by the equipment and the day it fell due, so each missed interval opens once. */
+export const upkeepDueSourceId = (equipmentId: string, dueOn: string) => stableId(equipmentId, dueOn);
+
+/** The overdue-check follow-ups a check done on `day` answers: any due day in the year before it, or that day. */
+export const upkeepDueAnsweredBy = (equipmentId: string, day: string): string[] =>
+  [day, ...daysBefore(day, 366)].map((dueOn) => upkeepDueSourceId(equipmentId, dueOn));

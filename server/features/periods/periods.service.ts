@@ -12,7 +12,7 @@ import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { recordTrail, type Actor } from '../../kernel/trail/trail.js';
 import type { PeriodRecord } from './period-input.repository.js';
-import { exceedanceSourceId, missedMonitoringSourceId, stableId } from './finding-ids.js';
+import { exceedanceSourceId, missedMonitoringSourceId, upkeepDueSourceId } from './finding-ids.js';
 import type { Response } from 'express';
 import type { Download } from '../../http/download.js';
 import { streamEvidenceBundle } from '../reports/evidence-bundle.js';
@@ -156,7 +156,7 @@ async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): 
       siteId: period.siteId,
       kind: 'upkeep-due',
       sourceEntity: 'equipment',
-      sourceId: stableId(item.id, item.nextCheckDueOn!),
+      sourceId: upkeepDueSourceId(item.id, item.nextCheckDueOn!),
       title: `Upkeep check overdue: ${item.name}`,
       dueAt: endOfDay(item.nextCheckDueOn!),
     });

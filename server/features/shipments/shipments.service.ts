@@ -10,6 +10,7 @@ import { usedOilFlags } from '../../domain/used-oil.js';
 import { forbidden, invalid, notFound } from '../../errors/app-error.js';
 import { checkUpload, sendStoredFile, storeFile } from '../../kernel/files/stored-files.js';
 import { siteToday } from '../../kernel/site-today.js';
+import { closeResolvedFollowUps } from '../follow-ups/close-resolved.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { attachShipmentFile, findShipment, insertShipment, pageShipments, updateShipment } from './shipments.repository.js';
 
@@ -37,6 +38,19 @@ async function visibleShipment(db: DataSource | EntityManager, user: CurrentUser
   return shipment!;
 }
 
+/** The signed copy is back: the follow-ups that chased it (40 CFR 262.42) close by themselves. */
+async function closeWhenSignedCopyBack(manager: EntityManager, user: CurrentUser, shipment: ShipmentView): Promise<void> {
+  if (!shipment.signedCopyReceivedOn) return;
+  await closeResolvedFollowUps(manager, user, {
+    siteId: shipment.siteId,
+    kinds: ['contact-transporter-and-facility', 'exception-report', 'copy-with-note-of-non-receipt'],
+    sourceEntity: 'shipment',
+    sourceIds: [shipment.id],
+    resolvedBy: { entity: 'shipment', id: shipment.id },
+    note: `the signed copy of ${shipment.documentNumber} was recorded as received on ${shipment.signedCopyReceivedOn}`,
+  });
+}
+
 /** Oil and oily waste leaving a site, with its manifest or bill of lading and the scans of its papers. */
 export class ShipmentsService {
   constructor(private readonly dataSource: DataSource) {}
@@ -62,6 +76,7 @@ export class ShipmentsService {
           const id = await insertShipment(manager, { siteId: request.siteId, ...columns(request as never, request), createdBy: user.id });
           const after = (await findShipment(manager, id))!;
           await recordTrail(manager, user, { action: 'create', entity: 'shipment', entityId: after.id, siteId: request.siteId, after });
+          await closeWhenSignedCopyBack(manager, user, after);
           return after;
         }),
       'documentNumber',
@@ -99,6 +114,7 @@ export class ShipmentsService {
             before,
             after: { ...after, reason },
           });
+          if (!before.signedCopyReceivedOn) await closeWhenSignedCopyBack(manager, user, after);
           return after;
         }),
       'documentNumber',

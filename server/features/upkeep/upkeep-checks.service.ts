@@ -7,6 +7,8 @@ import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js'
 import { invalid, notFound } from '../../errors/app-error.js';
 import { checkUpload, claimStoredFiles, findStoredFileOwner, sendStoredFile, storeFile } from '../../kernel/files/stored-files.js';
 import { siteToday } from '../../kernel/site-today.js';
+import { closeResolvedFollowUps } from '../follow-ups/close-resolved.js';
+import { upkeepDueAnsweredBy } from '../periods/finding-ids.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { openFollowUp } from '../follow-ups/open-follow-up.js';
 import { findEquipmentRef, findUpkeepChecks, insertUpkeepCheck } from './upkeep-checks.repository.js';
@@ -73,6 +75,14 @@ export class UpkeepChecksService {
         });
       }
       await recordTrail(manager, user, { action: 'create', entity: 'upkeep-check', entityId: after.id, siteId: equipment.siteId, after });
+      await closeResolvedFollowUps(manager, user, {
+        siteId: equipment.siteId,
+        kinds: ['upkeep-due'],
+        sourceEntity: 'equipment',
+        sourceIds: upkeepDueAnsweredBy(equipment.id, request.checkedOn),
+        resolvedBy: { entity: 'upkeep-check', id: after.id },
+        note: `the upkeep check of ${equipment.name} was done on ${request.checkedOn}`,
+      });
       return after;
     });
   }
