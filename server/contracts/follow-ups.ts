@@ -23,6 +23,21 @@ export const CorrectAwarenessRequest = z.object({
 });
 export type CorrectAwarenessRequest = z.output<typeof CorrectAwarenessRequest>;
 
+/** What a violation was, as compiled: kept on its follow-ups to draft the notice to the authority. */
+export interface ViolationFacts {
+  permitId: string;
+  permitNumber: string;
+  pointCode: string;
+  parameter: string;
+  statistic: string;
+  /** A day (YYYY-MM-DD) or a month (YYYY-MM) for an average. */
+  date: string;
+  shownValue: string;
+  limit: number;
+  unit: string;
+  resultIds: string[];
+}
+
 /** Anything with a deadline, opened by the server's rules. */
 export interface FollowUpView {
   id: string;

@@ -16,6 +16,7 @@ const actions: Record<string, string> = {
   'record-submission': 'Recorded the report as sent',
   'attach-file': 'Attached a file',
   close: 'Closed',
+  send: 'Sent',
   'sign-in': 'Signed in',
   'sign-out': 'Signed out',
   'insert-outside-decant': 'Added outside Decant',
@@ -44,6 +45,7 @@ const kinds: Record<string, string> = {
   flow_reading: 'Flow reading',
   'reporting-period': 'Reporting period',
   'follow-up': 'Follow-up',
+  'authority-notice': 'Notice to the authority',
   permit_limit: 'Limit',
   permit_settings: 'Permit settings',
 };

@@ -29,6 +29,7 @@ import { TrailEntry } from '../kernel/trail/trail-entry.entity.js';
 
 /** Every table's entity, listed explicitly so the DataSource needs no glob that differs between tsx and a build. */
 import { MailOutbox } from '../features/notices/mail-outbox.entity.js';
+import { AuthorityNotice } from '../features/notices/authority-notice.entity.js';
 import { MailPreferenceRow } from '../kernel/mail/mail-preference.entity.js';
 
 export const entities = [
@@ -62,4 +63,5 @@ export const entities = [
   ImportRun,
   MailOutbox,
   MailPreferenceRow,
+  AuthorityNotice,
 ];

@@ -10,6 +10,7 @@ import { LabCertificatesService } from '../../server/features/lab/lab-certificat
 import { LabImportService } from '../../server/features/lab/lab-import.service.js';
 import { demoIds } from '../fixtures/lab.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
+import { binary } from '../helpers/binary-body.js';
 
 const header = importColumns.map((column) => column.key).join(',');
 function csvRow(report: string, overrides: Partial<Record<string, string>> = {}): string {
@@ -37,11 +38,6 @@ function csvRow(report: string, overrides: Partial<Record<string, string>> = {})
   };
   return importColumns.map((column) => values[column.key]).join(',');
 }
-const binary = (res: NodeJS.ReadableStream, done: (error: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
 
 describe('lab results import', () => {
   let t: TestApp;

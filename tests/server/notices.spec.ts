@@ -1,3 +1,4 @@
+import { PDFParse } from 'pdf-parse';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMailInbox, type MailInbox } from '../../server/dev/mail-inbox.js';
@@ -9,6 +10,7 @@ import { siteRecipients } from '../../server/kernel/mail/recipients.js';
 import { createMailTransport } from '../../server/kernel/mail/transport.js';
 import { unsubscribeToken } from '../../server/kernel/mail/unsubscribe-token.js';
 import { certificateBody, demoIds } from '../fixtures/lab.js';
+import { binary } from '../helpers/binary-body.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
 
 // Ports of this suite's own mail inbox, apart from the ones `npm start` uses.
@@ -27,6 +29,7 @@ describe('notices by mail', () => {
   let inbox: MailInbox;
   let mail: MailSettings;
   let periodId: string;
+  let permitId: string;
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -61,6 +64,7 @@ describe('notices by mail', () => {
         nonDetectPolicy: 'zero',
       })
       .expect(201);
+    permitId = permit.body.id;
     await request(t.app)
       .post(`/api/permits/${permit.body.id}/limits`)
       .set('cookie', coordinator)
@@ -220,5 +224,97 @@ describe('notices by mail', () => {
       .send({ items: [{ kind: 'violation', delivery: 'off' }] })
       .expect(400);
     expect(put.body.error.fields).toHaveProperty('items.0.delivery');
+  });
+
+  it('drafts the notice to the authority from the violation, sends it with its PDF, and closes the notice follow-up', async () => {
+    const list = await request(t.app)
+      .get(`/api/follow-ups?siteId=${ids.north}&status=open&pageSize=100`)
+      .set('cookie', coordinator)
+      .expect(200);
+    const followUp = list.body.items.find(
+      (f: { kind: string; title: string }) => f.kind === 'notify-control-authority' && f.title.includes('OF-NT'),
+    );
+    const draft = await request(t.app).get(`/api/follow-ups/${followUp.id}/notice`).set('cookie', coordinator).expect(200);
+    expect(draft.body).toMatchObject({ status: 'new', to: null });
+    expect(draft.body.facts).toMatchObject({
+      permitNumber: 'NT-0001',
+      pointCode: 'OF-NT',
+      date: '2026-02-10',
+      value: '31.0 mg/L',
+      limit: 20,
+      sampledAt: ['2026-02-10 09:30'],
+    });
+    const account = {
+      cause: 'A coolant sump overflowed into the floor drain',
+      correctiveAction: 'Drain sealed; sump level alarm fitted',
+      repeatSampleOn: '2026-02-20',
+    };
+
+    // The permit has no address for the authority: the draft is kept, nothing is sent.
+    const refused = await request(t.app)
+      .post(`/api/follow-ups/${followUp.id}/notice/send`)
+      .set('cookie', coordinator)
+      .send(account)
+      .expect(400);
+    expect(refused.body.error.fields.to).toContain('has no address');
+    await request(t.app).put(`/api/follow-ups/${followUp.id}/notice`).set('cookie', coordinator).send(account).expect(200);
+    expect((await request(t.app).get(`/api/follow-ups/${followUp.id}/notice`).set('cookie', coordinator)).body).toMatchObject({
+      status: 'draft',
+      ...account,
+    });
+    const incomplete = await request(t.app)
+      .post(`/api/follow-ups/${followUp.id}/notice/send`)
+      .set('cookie', coordinator)
+      .send({ cause: '' })
+      .expect(400);
+    expect(incomplete.body.error.fields).toHaveProperty('cause');
+
+    await request(t.app)
+      .patch(`/api/permits/${permitId}`)
+      .set('cookie', coordinator)
+      .send({ authorityEmail: 'pretreatment@basin-water.test' })
+      .expect(200);
+    const sent = await request(t.app)
+      .post(`/api/follow-ups/${followUp.id}/notice/send`)
+      .set('cookie', coordinator)
+      .send(account)
+      .expect(200);
+    expect(sent.body).toMatchObject({ status: 'sent', to: 'pretreatment@basin-water.test', onTime: true });
+    const [closed] = await t.dataSource.query(
+      `SELECT status, closing_note, closing_file_id, closed_by_entity FROM follow_up WHERE id = $1`,
+      [followUp.id],
+    );
+    expect(closed).toMatchObject({ status: 'done', closed_by_entity: 'authority-notice' });
+    expect(closed.closing_note).toMatch(/^Notice sent to pretreatment@basin-water\.test on .+ \(site time\), on time$/);
+
+    await deliverPendingMail(t.dataSource, mail);
+    const [toAuthority] = (await inbox.messages()).filter((m) => m.to[0]!.address === 'pretreatment@basin-water.test');
+    expect(toAuthority!.subject).toContain('Notice of a violation: Tamsin Creek Works, permit NT-0001');
+    expect(toAuthority!.text).toContain('Cause: A coolant sump overflowed into the floor drain');
+    expect(toAuthority!.text).not.toContain('unsubscribe');
+    const attachment = (
+      toAuthority as unknown as { attachments: Array<{ fileName?: string; generatedFileName?: string; contentType: string }> }
+    ).attachments[0]!;
+    expect(attachment.contentType).toBe('application/pdf');
+    // The PDF is the follow-up's evidence file, so the period's evidence bundle carries it.
+    const pdf = await request(t.app)
+      .get(`/api/follow-ups/${followUp.id}/file`)
+      .set('cookie', coordinator)
+      .buffer(true)
+      .parse(binary as never)
+      .expect(200);
+    const parser = new PDFParse({ data: new Uint8Array(pdf.body) });
+    const text = (await parser.getText()).text.replace(/\s+/g, ' ');
+    await parser.destroy();
+    expect(text).toContain('Notice of a permit limit violation');
+    expect(text).toContain('NT-0001');
+    expect(text).toContain('31.0 mg/L on 2026-02-10');
+    expect(text).toContain('Drain sealed; sump level alarm fitted');
+
+    // Sent is final: no new draft, and the database refuses a change made around the app.
+    await request(t.app).put(`/api/follow-ups/${followUp.id}/notice`).set('cookie', coordinator).send(account).expect(409);
+    await expect(
+      t.dataSource.query(`UPDATE authority_notice SET cause = 'changed' WHERE follow_up_id = $1`, [followUp.id]),
+    ).rejects.toThrow(/kept as sent/);
   });
 });

@@ -2,17 +2,12 @@ import { createHash } from 'node:crypto';
 import ExcelJS from 'exceljs';
 import JSZip from 'jszip';
 import { PDFParse } from 'pdf-parse';
+import { binary } from '../helpers/binary-body.js';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { certificationStatements } from '../../server/domain/period/certification.js';
 import { demoIds } from '../fixtures/lab.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
-
-const binary = (res: NodeJS.ReadableStream, done: (error: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
 
 async function textOf(pdf: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });

@@ -17,6 +17,7 @@ import { PeriodPackWorkbooks1796259600000 } from './1796259600000-PeriodPackWork
 import { Notices1796263200000 } from './1796263200000-Notices.js';
 import { AwarenessTime1796266800000 } from './1796266800000-AwarenessTime.js';
 import { FollowUpsCloseThemselves1796270400000 } from './1796270400000-FollowUpsCloseThemselves.js';
+import { AuthorityNotices1796274000000 } from './1796274000000-AuthorityNotices.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -39,4 +40,5 @@ export const migrations = [
   Notices1796263200000,
   AwarenessTime1796266800000,
   FollowUpsCloseThemselves1796270400000,
+  AuthorityNotices1796274000000,
 ];

@@ -1,5 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique } from 'typeorm';
-import type { FollowUpStatus } from '../../contracts/follow-ups.js';
+import type { FollowUpStatus, ViolationFacts } from '../../contracts/follow-ups.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { StoredFile } from '../../kernel/files/stored-file.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
@@ -59,6 +59,10 @@ export class FollowUp {
 
   @Column({ type: 'uuid', name: 'closed_by_id', nullable: true })
   closedById: string | null;
+
+  /** For a violation's follow-ups: what was over which limit, kept to draft the notice from. */
+  @Column({ type: 'jsonb', nullable: true })
+  facts: ViolationFacts | null;
 
   /** For a violation's notice: when the site became aware, the moment its clock runs from. */
   @Column({ type: 'timestamptz', name: 'aware_at', nullable: true })

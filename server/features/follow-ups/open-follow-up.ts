@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import type { ViolationFacts } from '../../contracts/follow-ups.js';
 import { mailFollowUpOpened } from '../notices/follow-up-mail.js';
 
 export interface FollowUpToOpen {
@@ -11,6 +12,7 @@ export interface FollowUpToOpen {
   /** For a violation's notices: when the site became aware, and from what. */
   awareAt?: Date;
   awareSource?: string;
+  facts?: ViolationFacts;
 }
 
 /**
@@ -20,7 +22,8 @@ export interface FollowUpToOpen {
  */
 export async function openFollowUp(manager: EntityManager, followUp: FollowUpToOpen): Promise<void> {
   const [opened]: Array<{ id: string }> = await manager.query(
-    `INSERT INTO follow_up (site_id, kind, source_entity, source_id, title, due_at, aware_at, aware_source) VALUES ($1, $2, $3, $4, $5, $6, $7, $8)
+    `INSERT INTO follow_up (site_id, kind, source_entity, source_id, title, due_at, aware_at, aware_source, facts)
+     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9)
      ON CONFLICT (kind, source_entity, source_id) DO NOTHING RETURNING id`,
     [
       followUp.siteId,
@@ -31,6 +34,7 @@ export async function openFollowUp(manager: EntityManager, followUp: FollowUpToO
       followUp.dueAt,
       followUp.awareAt ?? null,
       followUp.awareSource?.slice(0, 300) ?? null,
+      followUp.facts ? JSON.stringify(followUp.facts) : null,
     ],
   );
   if (opened) await mailFollowUpOpened(manager, { ...followUp, id: opened.id });

@@ -94,6 +94,18 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
           dueAt: obligation.dueAt,
           awareAt,
           awareSource: aware.source,
+          facts: {
+            permitId: period.permitId,
+            permitNumber: period.permitNumber,
+            pointCode: row.pointCode,
+            parameter: row.parameter,
+            statistic: row.statistic,
+            date: exceedance.date,
+            shownValue: exceedance.shownValue,
+            limit: exceedance.limit,
+            unit: row.unit,
+            resultIds: exceedance.resultIds,
+          },
         });
       }
     }

@@ -1,5 +1,5 @@
 import type { Transporter } from 'nodemailer';
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { MailKind } from '../../contracts/mail.js';
 import type { MailContent } from './outbox.js';
 import { renderMail } from './render-mail.js';
@@ -42,14 +42,23 @@ export async function deliverPendingMail(db: DataSource, settings: MailSettings,
           WHERE status = 'pending' AND next_attempt_at <= now() ORDER BY next_attempt_at LIMIT 1 FOR UPDATE SKIP LOCKED`,
       );
       if (!mail) return 'empty' as const;
-      const unsubscribe = `${settings.appUrl}/api/mail/unsubscribe?token=${mail.user_id ? unsubscribeToken(mail.user_id, mail.kind, settings.secret) : ''}`;
-      const message = renderMail(mail.params, mail.kind, { record: `${settings.appUrl}${mail.params.path}`, unsubscribe });
+      // A person of Decant gets the record's link and the way out; an outside address neither.
+      const unsubscribe = mail.user_id
+        ? `${settings.appUrl}/api/mail/unsubscribe?token=${unsubscribeToken(mail.user_id, mail.kind, settings.secret)}`
+        : null;
+      const message = renderMail(
+        mail.params,
+        mail.kind,
+        unsubscribe ? { record: `${settings.appUrl}${mail.params.path}`, unsubscribe } : null,
+      );
+      const attachments = await attachmentsOf(manager, mail.params);
       try {
         await settings.transport.sendMail({
           from: settings.from,
           to: mail.recipient,
           ...message,
-          headers: { 'List-Unsubscribe': `<${unsubscribe}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' },
+          attachments,
+          headers: unsubscribe ? { 'List-Unsubscribe': `<${unsubscribe}>`, 'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click' } : {},
         });
         await manager.query(
           `UPDATE mail_outbox SET status = 'sent', sent_at = now(), attempts = attempts + 1, last_error = NULL WHERE id = $1`,
@@ -78,4 +87,16 @@ export async function deliverPendingMail(db: DataSource, settings: MailSettings,
     if (outcome === 'refused') break;
   }
   return { sent, failed };
+}
+
+async function attachmentsOf(manager: EntityManager, content: MailContent) {
+  if (!content.attachments?.length) return [];
+  const files: Array<{ id: string; content: Buffer; media_type: string }> = await manager.query(
+    `SELECT id, content, media_type FROM stored_file WHERE id = ANY($1::uuid[])`,
+    [content.attachments.map((a) => a.fileId)],
+  );
+  return content.attachments.flatMap((a) => {
+    const file = files.find((f) => f.id === a.fileId);
+    return file ? [{ filename: a.fileName, content: file.content, contentType: file.media_type }] : [];
+  });
 }

@@ -11,6 +11,8 @@ export interface MailContent {
   /** The record's place in the app, from the root ("/follow-ups?…"). */
   path: string;
   linkText: string;
+  /** Stored files sent along (a notice's PDF). */
+  attachments?: Array<{ fileId: string; fileName: string }>;
 }
 
 export interface MailEvent {
@@ -42,6 +44,19 @@ export async function queueMail(manager: EntityManager, event: MailEvent, recipi
       now.map((r) => r.id),
       now.map((r) => r.email),
     ],
+  );
+  return rows.length;
+}
+
+/**
+ * Queues a mail to an address outside Decant (the control authority), inside the caller's
+ * transaction; such a mail carries no link back into the app and no unsubscribe link.
+ */
+export async function queueMailTo(manager: EntityManager, event: MailEvent, address: string): Promise<number> {
+  const rows: Array<{ id: string }> = await manager.query(
+    `INSERT INTO mail_outbox (event_key, kind, user_id, recipient, params, subject, follow_up_id)
+     VALUES ($1, $2, NULL, $3, $4, $5, $6) ON CONFLICT (event_key, recipient) DO NOTHING RETURNING id`,
+    [event.eventKey, event.kind, address, JSON.stringify(event.content), event.content.subject.slice(0, 300), event.followUpId ?? null],
   );
   return rows.length;
 }
