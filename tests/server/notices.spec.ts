@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMailInbox, type MailInbox } from '../../server/dev/mail-inbox.js';
 import { openFollowUp } from '../../server/features/follow-ups/open-follow-up.js';
 import { queueDailyDigests } from '../../server/features/notices/daily-digest.js';
+import { sweepDeadlines } from '../../server/features/notices/deadline-sweep.js';
 import { deliverPendingMail, type MailSettings } from '../../server/kernel/mail/deliver-mail.js';
 import { queueMail } from '../../server/kernel/mail/outbox.js';
 import { siteRecipients } from '../../server/kernel/mail/recipients.js';
@@ -316,5 +317,45 @@ describe('notices by mail', () => {
     await expect(
       t.dataSource.query(`UPDATE authority_notice SET cause = 'changed' WHERE follow_up_id = $1`, [followUp.id]),
     ).rejects.toThrow(/kept as sent/);
+  });
+
+  it('sends a reminder when a follow-up becomes overdue, and drops it if the follow-up closed before it went', async () => {
+    const now = Date.now();
+    const opened = async (sourceId: string) => {
+      await t.dataSource.transaction((manager) =>
+        openFollowUp(manager, {
+          siteId: ids.north,
+          kind: 'missed-sample',
+          sourceEntity: 'missed-monitoring',
+          sourceId,
+          title: `Reminder test ${sourceId.slice(-4)}`,
+          dueAt: new Date(now + 3600_000),
+        }),
+      );
+      return (await t.dataSource.query(`SELECT id FROM follow_up WHERE source_id = $1`, [sourceId]))[0].id as string;
+    };
+    const kept = await opened('00000000-0000-4000-8000-00000000aa01');
+    const closedFirst = await opened('00000000-0000-4000-8000-00000000aa02');
+    // Two hours on, both are overdue: the sweep queues one reminder each per coordinator.
+    await sweepDeadlines(t.dataSource, new Date(now + 2 * 3600_000));
+    const queued = await t.dataSource.query(
+      `SELECT follow_up_id, status FROM mail_outbox WHERE event_key LIKE 'reminder:%' AND follow_up_id = ANY($1::uuid[])`,
+      [[kept, closedFirst]],
+    );
+    expect(queued.filter((row: { follow_up_id: string }) => row.follow_up_id === kept).length).toBeGreaterThan(0);
+    await request(t.app)
+      .post(`/api/follow-ups/${closedFirst}/close`)
+      .set('cookie', coordinator)
+      .send({ note: 'Sample taken after all' })
+      .expect(200);
+    await deliverPendingMail(t.dataSource, mail);
+    const after: Array<{ follow_up_id: string; status: string }> = await t.dataSource.query(
+      `SELECT follow_up_id, status FROM mail_outbox WHERE event_key LIKE 'reminder:%' AND follow_up_id = ANY($1::uuid[])`,
+      [[kept, closedFirst]],
+    );
+    expect(new Set(after.filter((row) => row.follow_up_id === kept).map((row) => row.status))).toEqual(new Set(['sent']));
+    expect(new Set(after.filter((row) => row.follow_up_id === closedFirst).map((row) => row.status))).toEqual(new Set(['dropped']));
+    expect(await messagesAbout('Reminder test aa02')).toHaveLength(0);
+    expect((await messagesAbout('Reminder test aa01')).length).toBeGreaterThan(0);
   });
 });

@@ -18,6 +18,7 @@ import { Notices1796263200000 } from './1796263200000-Notices.js';
 import { AwarenessTime1796266800000 } from './1796266800000-AwarenessTime.js';
 import { FollowUpsCloseThemselves1796270400000 } from './1796270400000-FollowUpsCloseThemselves.js';
 import { AuthorityNotices1796274000000 } from './1796274000000-AuthorityNotices.js';
+import { MailDropped1796277600000 } from './1796277600000-MailDropped.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -41,4 +42,5 @@ export const migrations = [
   AwarenessTime1796266800000,
   FollowUpsCloseThemselves1796270400000,
   AuthorityNotices1796274000000,
+  MailDropped1796277600000,
 ];

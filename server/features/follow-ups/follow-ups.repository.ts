@@ -75,7 +75,8 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
                 FROM mail_outbox m WHERE m.follow_up_id = follow_up.id) AS mail FROM follow_up`,
       countFrom: 'FROM follow_up',
       where: `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`,
-      order: `(status = 'open') DESC, due_at ${query.sortDesc ? 'DESC' : 'ASC'}`,
+      // Open ones by deadline, the soonest first; closed ones by when they closed, the latest first.
+      order: `(status = 'open') DESC, CASE WHEN status = 'open' THEN due_at END ${query.sortDesc ? 'DESC' : 'ASC'}, closed_at DESC NULLS LAST, id`,
       params: [siteIds, query.status ?? null],
     },
     query,

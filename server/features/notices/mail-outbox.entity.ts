@@ -7,7 +7,7 @@ import type { MailContent } from '../../kernel/mail/outbox.js';
 /** A mail to one recipient about one event, queued with the change that caused it (kernel/mail/outbox.ts). */
 @Check(
   'mail_outbox_status_check',
-  `((status)::text = ANY ((ARRAY['pending'::character varying, 'sent'::character varying, 'failed'::character varying])::text[]))`,
+  `((status)::text = ANY ((ARRAY['pending'::character varying, 'sent'::character varying, 'failed'::character varying, 'dropped'::character varying])::text[]))`,
 )
 @Unique('mail_outbox_event_key_recipient_key', ['eventKey', 'recipient'])
 @Index('IDX_mail_outbox_pending', ['nextAttemptAt'], { where: `(status)::text = 'pending'::text` })
@@ -47,7 +47,7 @@ export class MailOutbox {
   followUp?: FollowUp;
 
   @Column({ type: 'varchar', length: 10, default: 'pending' })
-  status: 'pending' | 'sent' | 'failed';
+  status: 'pending' | 'sent' | 'failed' | 'dropped';
 
   @Column({ type: 'integer', default: 0 })
   attempts: number;

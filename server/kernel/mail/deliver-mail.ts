@@ -35,6 +35,11 @@ interface Claimed {
 export async function deliverPendingMail(db: DataSource, settings: MailSettings, limit = 200): Promise<{ sent: number; failed: number }> {
   let sent = 0;
   let failed = 0;
+  // Reminders of follow-ups closed since they were queued would be wrong by now: dropped, not sent.
+  await db.query(
+    `UPDATE mail_outbox m SET status = 'dropped' FROM follow_up f
+      WHERE m.status = 'pending' AND m.follow_up_id = f.id AND f.status <> 'open' AND m.event_key LIKE 'reminder:%'`,
+  );
   for (let i = 0; i < limit; i++) {
     const outcome = await db.transaction(async (manager) => {
       const [mail]: Claimed[] = await manager.query(
