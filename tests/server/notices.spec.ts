@@ -125,6 +125,11 @@ describe('notices by mail', () => {
       (f: { kind: string; title: string }) => f.kind === 'notify-control-authority' && f.title.includes('OF-NT'),
     );
     expect(notice.mail).toEqual({ sent: coordinators.length, pending: 0, failed: 0 });
+    // One violation, one group: its repeat sampling follows its notice in the list, marked as part of it.
+    const items = list.body.items as Array<{ id: string; kind: string; partOf: string | null }>;
+    const at = items.findIndex((f) => f.id === notice.id);
+    expect(items[at + 1]).toMatchObject({ kind: 'repeat-sampling', partOf: notice.id });
+    expect(notice.partOf).toBeNull();
   });
 
   it('keeps mail while SMTP is down and delivers each once when it is back, however many deliver at once', async () => {

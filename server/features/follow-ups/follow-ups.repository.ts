@@ -28,7 +28,7 @@ type FollowUpFields = Pick<
 type MailCounts = FollowUpView['mail'];
 const noMail: MailCounts = { sent: 0, pending: 0, failed: 0 };
 
-const view = (row: FollowUpFields, mail: MailCounts = noMail): FollowUpView => ({
+const view = (row: FollowUpFields, mail: MailCounts = noMail, partOf: string | null = null): FollowUpView => ({
   id: row.id,
   siteId: row.siteId,
   kind: row.kind,
@@ -44,6 +44,7 @@ const view = (row: FollowUpFields, mail: MailCounts = noMail): FollowUpView => (
   awareAt: row.awareAt?.toISOString() ?? null,
   awareSource: row.awareSource,
   mail,
+  partOf,
 });
 
 interface FollowUpRow {
@@ -62,8 +63,12 @@ interface FollowUpRow {
   aware_source: string | null;
   closed_by_entity: string | null;
   closed_by_id: string | null;
+  group_lead: string;
   mail: MailCounts | null;
 }
+
+/** The follow-ups one violation opens share their source (the exceedance) and their state. */
+const violationGroup = `site_id, source_entity, source_id, status`;
 
 // Raw SQL: the page and its count over one filter, read at once (server/db/page.ts).
 export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): Promise<Page<FollowUpView>> {
@@ -72,11 +77,14 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
     {
       select: `SELECT follow_up.*, (SELECT json_build_object('sent', count(*) FILTER (WHERE m.status = 'sent'),
                 'pending', count(*) FILTER (WHERE m.status = 'pending'), 'failed', count(*) FILTER (WHERE m.status = 'failed'))
-                FROM mail_outbox m WHERE m.follow_up_id = follow_up.id) AS mail FROM follow_up`,
+                FROM mail_outbox m WHERE m.follow_up_id = follow_up.id) AS mail,
+                first_value(id) OVER (PARTITION BY ${violationGroup} ORDER BY due_at, id) AS group_lead FROM follow_up`,
       countFrom: 'FROM follow_up',
       where: `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`,
       // Open ones by deadline, the soonest first; closed ones by when they closed, the latest first.
-      order: `(status = 'open') DESC, CASE WHEN status = 'open' THEN due_at END ${query.sortDesc ? 'DESC' : 'ASC'}, closed_at DESC NULLS LAST, id`,
+      // A violation's follow-ups (its notice, its repeat sampling) stay together, the notice first.
+      order: `(status = 'open') DESC, CASE WHEN status = 'open' THEN min(due_at) OVER (PARTITION BY ${violationGroup}) END ${query.sortDesc ? 'DESC' : 'ASC'},
+              CASE WHEN status = 'open' THEN source_id END, CASE WHEN status = 'open' THEN due_at END, closed_at DESC NULLS LAST, id`,
       params: [siteIds, query.status ?? null],
     },
     query,
@@ -100,6 +108,7 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
           closedById: row.closed_by_id,
         },
         row.mail ?? noMail,
+        row.source_entity === 'exceedance' && row.group_lead !== row.id ? row.group_lead : null,
       ),
   );
 }
