@@ -73,4 +73,17 @@ describe('jobs across instances', () => {
     await waitFor(() => calls.filter((call) => call.queue === queues.deliverMail).length > before);
     expect(calls.filter((call) => call.queue === queues.deliverMail).length).toBeGreaterThan(before);
   });
+
+  it('creates each scheduled job once a minute however many instances keep the clock', async () => {
+    // The delivery job is scheduled every minute: wait for the clock to fire at least once.
+    const scheduledRuns = () => calls.filter((call) => (call.data as { scheduled?: string }).scheduled === queues.deliverMail);
+    await waitFor(() => scheduledRuns().length > 0, 100_000);
+    expect(scheduledRuns().length).toBeGreaterThan(0);
+    const perMinute: Array<{ n: number }> = await t.dataSource.query(
+      `SELECT count(*)::int AS n FROM pgboss.job WHERE name = $1 AND data->>'scheduled' = $1 GROUP BY date_trunc('minute', created_on)`,
+      [queues.deliverMail],
+    );
+    expect(perMinute.length).toBeGreaterThan(0);
+    expect(perMinute.every((minute) => minute.n === 1)).toBe(true);
+  }, 120_000);
 });

@@ -18,7 +18,7 @@ export async function startJobs(databaseUrl: string, handlers: JobHandlers): Pro
   const boss = new PgBoss({ connectionString: databaseUrl, schema: 'pgboss', max: 4, migrate: false });
   boss.on('error', (error) => console.error('Job queue:', error));
   await boss.start();
-  for (const [name, cron] of Object.entries(schedules)) await boss.schedule(name, cron, {}, { singletonKey: name });
+  for (const [name, cron] of Object.entries(schedules)) await boss.schedule(name, cron, { scheduled: name }, { singletonKey: name });
   for (const name of Object.values(queues)) {
     await boss.work(name, { pollingIntervalSeconds: 2 }, async (jobs) => {
       for (const job of jobs) await handlers[name]((job.data ?? {}) as object);
