@@ -56,6 +56,8 @@ export interface FollowUpView {
   /** For a violation's notice: when the site became aware (the clock's start) and from what. */
   awareAt: string | null;
   awareSource: string | null;
+  /** Who closed it, or whose change closed it by itself. */
+  closedByName: string | null;
   /** For a violation's later follow-up (its repeat sampling): the follow-up it is grouped under. */
   partOf: string | null;
   /** Its mails: sent, still being tried, and given up (not delivered). */

@@ -42,6 +42,7 @@ export async function closeResolvedFollowUps(manager: EntityManager, actor: Acto
         status: () => `CASE WHEN now() > due_at THEN 'done-late' ELSE 'done' END`,
         closedAt: () => 'now()',
         closingNote: `Closed by Decant: ${resolution.note}`,
+        ownerId: actor.id ?? null,
         closedByEntity: resolution.resolvedBy.entity,
         closedById: resolution.resolvedBy.id,
       })

@@ -28,7 +28,12 @@ type FollowUpFields = Pick<
 type MailCounts = FollowUpView['mail'];
 const noMail: MailCounts = { sent: 0, pending: 0, failed: 0 };
 
-const view = (row: FollowUpFields, mail: MailCounts = noMail, partOf: string | null = null): FollowUpView => ({
+const view = (
+  row: FollowUpFields,
+  mail: MailCounts = noMail,
+  partOf: string | null = null,
+  closedByName: string | null = null,
+): FollowUpView => ({
   id: row.id,
   siteId: row.siteId,
   kind: row.kind,
@@ -45,6 +50,7 @@ const view = (row: FollowUpFields, mail: MailCounts = noMail, partOf: string | n
   awareSource: row.awareSource,
   mail,
   partOf,
+  closedByName,
 });
 
 interface FollowUpRow {
@@ -64,6 +70,7 @@ interface FollowUpRow {
   closed_by_entity: string | null;
   closed_by_id: string | null;
   group_lead: string;
+  owner_name: string | null;
   mail: MailCounts | null;
 }
 
@@ -78,6 +85,7 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
       select: `SELECT follow_up.*, (SELECT json_build_object('sent', count(*) FILTER (WHERE m.status = 'sent'),
                 'pending', count(*) FILTER (WHERE m.status = 'pending'), 'failed', count(*) FILTER (WHERE m.status = 'failed'))
                 FROM mail_outbox m WHERE m.follow_up_id = follow_up.id) AS mail,
+                (SELECT u.name FROM app_user u WHERE u.id = follow_up.owner_id) AS owner_name,
                 first_value(id) OVER (PARTITION BY ${violationGroup} ORDER BY due_at, id) AS group_lead FROM follow_up`,
       countFrom: 'FROM follow_up',
       where: `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`,
@@ -109,6 +117,7 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
         },
         row.mail ?? noMail,
         row.source_entity === 'exceedance' && row.group_lead !== row.id ? row.group_lead : null,
+        row.owner_name,
       ),
   );
 }
