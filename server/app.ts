@@ -27,6 +27,7 @@ import { trailRoutes } from './features/trail/trail.routes.js';
 import { importRunsRoutes } from './features/imports/imports.routes.js';
 import { meRoutes } from './features/users/me.routes.js';
 import { mailPreferencesRoutes, unsubscribeRoutes } from './features/notices/notices.routes.js';
+import { toolsRoutes } from './features/tools/tools.routes.js';
 import { usersRoutes } from './features/users/users.routes.js';
 import { apiNotFound, errorHandler } from './middleware/error-handler.js';
 import { signInRateLimit, writeRateLimit } from './middleware/rate-limits.js';
@@ -74,6 +75,7 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   mountRouter(api, '/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
   mountRouter(api, '/me', meRoutes(dataSource));
   mountRouter(api, '/mail/preferences', mailPreferencesRoutes(dataSource));
+  mountRouter(api, '/tools', toolsRoutes());
   mountRouter(api, '/users', usersRoutes(dataSource));
   mountRouter(api, '/sites/:siteId/discharge-points', dischargePointsRoutes(dataSource));
   mountRouter(api, '/sites/:siteId/oil-on-hand', oilOnHandRoutes(dataSource));

@@ -9,6 +9,7 @@ import {
   mdiOilLevel,
   mdiTruckOutline,
   mdiViewDashboardOutline,
+  mdiWaterOutline,
 } from '@mdi/js';
 import type { Action } from '@contracts/permissions.js';
 
@@ -20,7 +21,7 @@ export interface Area {
 }
 
 /**
- * The areas of the navigation, in product order. Tools joins this list when it is built.
+ * The areas of the navigation, in product order.
  */
 export const areas: Area[] = [
   { title: 'Overview', icon: mdiViewDashboardOutline, routeName: 'overview', action: 'sites.read' },
@@ -31,6 +32,7 @@ export const areas: Area[] = [
   { title: 'Reports', icon: mdiFileDocumentMultipleOutline, routeName: 'reports', action: 'periods.read' },
   { title: 'Follow-ups', icon: mdiBellAlertOutline, routeName: 'follow-ups', action: 'follow-ups.read' },
   { title: 'Trail', icon: mdiHistory, routeName: 'trail', action: 'trail.read' },
+  { title: 'Tank check', icon: mdiWaterOutline, routeName: 'tank-check', action: 'tools.use' },
   { title: 'Set-up', icon: mdiCogOutline, routeName: 'setup', action: 'setup.manage' },
   { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },
 ];

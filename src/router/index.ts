@@ -131,6 +131,12 @@ export const routes: RouteRecordRaw[] = [
         component: () => import('@/views/PeopleView.vue'),
         meta: { action: 'users.read', title: 'People and access' },
       },
+      {
+        path: 'tools/tank-check',
+        name: 'tank-check',
+        component: () => import('@/views/TankCheckView.vue'),
+        meta: { action: 'tools.use', title: 'Tank check' },
+      },
       { path: 'mail', name: 'mail', component: () => import('@/views/MailSettingsView.vue'), meta: { title: 'Mail' } },
       {
         path: 'waiting-for-access',

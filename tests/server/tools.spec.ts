@@ -1,0 +1,52 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startTestApp, type TestApp } from '../helpers/test-app.js';
+
+/** The tank check over HTTP: the person's units in, verdict and figures in words out, bad input named. */
+describe('the tank check', () => {
+  let t: TestApp;
+  let coordinator: string;
+  beforeAll(async () => {
+    t = await startTestApp();
+    coordinator = await t.sessionFor('coordinator@decant.test');
+  });
+  afterAll(() => t.close());
+
+  const check = (body: object, cookie = coordinator) => request(t.app).post('/api/tools/tank-check').set('cookie', cookie).send(body);
+  // 2 m × 1 m, 1.2 m deep, 7.2 m³/h (2 L/s), oil SG 0.85 at 20 °C: see tests/unit/tank-check.spec.ts.
+  const metric = {
+    unitSystem: 'metric',
+    shape: 'rectangular',
+    length: 2,
+    width: 1,
+    depth: 1.2,
+    flow: 7.2,
+    waterTemperature: 20,
+    oilSpecificGravity: 0.85,
+  };
+
+  it('says whether the design droplet surfaces, with the margin, and says it is an estimate', async () => {
+    const { body } = await check(metric).expect(200);
+    expect(body.verdict).toBe('rises');
+    expect(body.summary).toBe('Oil of 150 µm needs 11 min to surface; water stays 20 min — enough, with 1.8 times the time needed.');
+    expect(body.stokesNote).toMatch(/^Stokes’ law applies/);
+    expect(body.caution).toContain('does not replace a licensed engineer');
+    const busy = await check({ ...metric, flow: 18 }).expect(200);
+    expect(busy.body.verdict).toBe('too-short');
+    expect(busy.body.remedies[0]).toBe('A smaller flow: at most 13.13 m³/h through this tank.');
+  });
+
+  it('gives the same verdict for the same tank in US units', async () => {
+    // 2 m = 6.5617 ft, 1 m = 3.2808 ft, 1.2 m = 3.937 ft, 7.2 m³/h = 31.70 gal/min, 20 °C = 68 °F.
+    const us = { ...metric, unitSystem: 'us', length: 6.5617, width: 3.2808, depth: 3.937, flow: 31.7006, waterTemperature: 68 };
+    const { body } = await check(us).expect(200);
+    expect(body.summary).toBe('Oil of 150 µm needs 11 min to surface; water stays 20 min — enough, with 1.8 times the time needed.');
+    expect(body.figures.find((f: { label: string }) => f.label === 'Water surface').value).toBe('21.5 ft²');
+  });
+
+  it('names each field it cannot use, and stays closed to a role without the tools', async () => {
+    const bad = await check({ ...metric, width: undefined, waterTemperature: 95, oilSpecificGravity: 0.3 }).expect(400);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['oilSpecificGravity', 'waterTemperature', 'width']);
+    await check(metric, await t.sessionFor('admin@decant.test')).expect(403);
+  });
+});
