@@ -25,7 +25,7 @@ export const TankCheckRequest = z
       .number({ error: 'Enter the oil specific gravity' })
       .finite()
       .min(0.6, 'Below 0.6 is not an oil')
-      .max(1.2, 'Above 1.2 is not an oil'),
+      .lt(1, 'An oil of specific gravity 1 or more does not float: a gravity tank or skimmer cannot take it off the surface'),
     dropletMicrons: z.number().finite().min(1, 'At least 1 µm').max(5000, 'At most 5,000 µm').default(150),
   })
   .superRefine((value, ctx) => {

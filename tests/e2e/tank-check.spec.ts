@@ -35,6 +35,7 @@ describe('the tank check on screen', () => {
     expect(text).toMatch(/Oil of 150 µm needs \d+ min to surface; water stays \d+ min — too short/);
     expect(text).toContain('A smaller flow: at most');
     expect(text).toContain('does not replace a licensed engineer');
+    expect(await page.locator('[data-test="estimate-caution"]').textContent()).toContain('lockout and confined-space rules');
     await result.scrollIntoViewIfNeeded();
     await screenshot(page, 'tank-check-phone');
     expect(await seriousAccessibilityProblems(page, 'tank check with a result (phone)')).toEqual([]);

@@ -45,8 +45,11 @@ describe('the tank check', () => {
   });
 
   it('names each field it cannot use, and stays closed to a role without the tools', async () => {
-    const bad = await check({ ...metric, width: undefined, waterTemperature: 95, oilSpecificGravity: 0.3 }).expect(400);
-    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['oilSpecificGravity', 'waterTemperature', 'width']);
+    const bad = await check({ ...metric, width: undefined, depth: 0, waterTemperature: 95, oilSpecificGravity: 1.02 }).expect(400);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['depth', 'oilSpecificGravity', 'waterTemperature', 'width']);
+    expect(bad.body.error.fields.oilSpecificGravity).toContain('does not float');
+    const usBad = await check({ ...metric, unitSystem: 'us', waterTemperature: 20 }).expect(400);
+    expect(usBad.body.error.fields.waterTemperature).toBe('Use 32 to 176 °F');
     await check(metric, await t.sessionFor('admin@decant.test')).expect(403);
   });
 });

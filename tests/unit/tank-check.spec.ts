@@ -72,4 +72,29 @@ describe('does the oil have time to rise', () => {
     const check = checkTank({ ...tank, flowM3s: flow, surfaceM2: area, depthM: unit(3, 'ft').toNumber('m') });
     expect(check.surfaceLoading).toBeCloseTo(flow / area, 12);
   });
+
+  it('grows with the square of the droplet and with the density difference, and falls as the water grows more viscous', () => {
+    const base = checkTank(tank);
+    expect(checkTank({ ...tank, dropletM: 300e-6 }).riseVelocity / base.riseVelocity).toBeCloseTo(4, 9);
+    const lighter = checkTank({ ...tank, oilSpecificGravity: 0.75 });
+    expect(lighter.riseVelocity / base.riseVelocity).toBeCloseTo(
+      (lighter.waterDensity - lighter.oilDensity) / (base.waterDensity - base.oilDensity),
+      9,
+    );
+    const cold = checkTank({ ...tank, waterCelsius: 5 });
+    // Density changes a little too: compare Δρ/μ, what Stokes' law scales with.
+    expect(cold.riseVelocity / base.riseVelocity).toBeCloseTo(
+      ((cold.waterDensity - cold.oilDensity) / cold.waterViscosity) * (base.waterViscosity / (base.waterDensity - base.oilDensity)),
+      9,
+    );
+    expect(cold.riseVelocity).toBeLessThan(base.riseVelocity);
+  });
+
+  it('flips its verdict where the rise time equals the residence time', () => {
+    const atBalance = checkTank(tank).remedies.maxFlowM3s;
+    expect(checkTank({ ...tank, flowM3s: atBalance * 0.999 }).verdict).toBe('rises');
+    expect(checkTank({ ...tank, flowM3s: atBalance * 1.001 }).verdict).toBe('too-short');
+    const balanced = checkTank({ ...tank, flowM3s: atBalance });
+    expect(balanced.riseSeconds).toBeCloseTo(balanced.residenceSeconds, 6);
+  });
 });

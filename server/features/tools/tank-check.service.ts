@@ -11,7 +11,9 @@ const fixed = (value: number, digits: number) =>
   value.toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: digits });
 
 export const TANK_CHECK_CAUTION =
-  'An estimate for screening, not a design: Stokes\u2019 law for one droplet in still water, without turbulence, short-circuiting, inlet jets, emulsified oil or solids. It does not replace a licensed engineer, the equipment maker\u2019s sizing or local codes.';
+  'An estimate for screening, not a design: Stokes\u2019 law for one droplet in still water, without turbulence, short-circuiting, inlet jets, emulsified oil or solids. ' +
+  'It does not replace a licensed engineer, the equipment maker\u2019s sizing or local codes; local codes and the control authority govern. ' +
+  'Before working on a tank, follow the site\u2019s lockout and confined-space rules and wear the protective equipment it requires.';
 
 /** Runs the tank check in SI and answers in the person's own units and words. */
 export function tankCheck(request: TankCheckRequest): TankCheckView {
