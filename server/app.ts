@@ -75,7 +75,7 @@ export function createApp({ config, dataSource, sessionPool, clientDir }: AppDep
   mountRouter(api, '/auth', authRoutes(config, dataSource, new OidcRelyingParty(config)));
   mountRouter(api, '/me', meRoutes(dataSource));
   mountRouter(api, '/mail/preferences', mailPreferencesRoutes(dataSource));
-  mountRouter(api, '/tools', toolsRoutes());
+  mountRouter(api, '/tools', toolsRoutes(dataSource));
   mountRouter(api, '/users', usersRoutes(dataSource));
   mountRouter(api, '/sites/:siteId/discharge-points', dischargePointsRoutes(dataSource));
   mountRouter(api, '/sites/:siteId/oil-on-hand', oilOnHandRoutes(dataSource));

@@ -56,3 +56,23 @@ export interface TankCheckView {
   /** The estimate's limits and the engineer and codes it does not replace. */
   caution: string;
 }
+
+export const SkimmerFitQuery = z.object({ siteId: z.uuid('Not a valid id') });
+
+export interface SkimmerFitView {
+  /** Rate at least this many times the removal needed (common practice). */
+  sizingFactor: number;
+  items: Array<{
+    equipmentId: string;
+    name: string;
+    kind: string;
+    daysLogged: number;
+    /** Median and highest day of the last 90, per hour run, L/h. */
+    typicalLph: number | null;
+    peakLph: number | null;
+    ratedLph: number;
+    recommendedLph: number | null;
+    verdict: 'fits' | 'undersized' | 'no-log';
+  }>;
+  caution: string;
+}

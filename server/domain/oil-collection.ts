@@ -10,9 +10,14 @@ export function ratingLitresPerHour(rating: number, unit: 'gal/h' | 'L/h'): numb
  * do, because ratings assume ideal oil and conditions. Equipment whose average rate while
  * running is above half its rating is likely undersized.
  */
+export const SIZING_FACTOR = 2;
+
 export function likelyUndersized(averageLitresPerHour: number, ratedLitresPerHour: number): boolean {
-  return ratedLitresPerHour > 0 && averageLitresPerHour > ratedLitresPerHour / 2;
+  return ratedLitresPerHour > 0 && averageLitresPerHour > ratedLitresPerHour / SIZING_FACTOR;
 }
+
+/** The rating a skimmer should have for a removal rate: the same 2× rule (common practice, no published source). */
+export const recommendedRating = (removalLitresPerHour: number) => removalLitresPerHour * SIZING_FACTOR;
 
 /** A day's collection above what the equipment could remove running flat out for 24 hours cannot be real. */
 export function physicallyPossible(litres: number, ratedLitresPerHour: number): boolean {

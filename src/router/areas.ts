@@ -7,6 +7,7 @@ import {
   mdiFlaskOutline,
   mdiHistory,
   mdiOilLevel,
+  mdiScaleUnbalanced,
   mdiTruckOutline,
   mdiViewDashboardOutline,
   mdiWaterOutline,
@@ -33,6 +34,7 @@ export const areas: Area[] = [
   { title: 'Follow-ups', icon: mdiBellAlertOutline, routeName: 'follow-ups', action: 'follow-ups.read' },
   { title: 'Trail', icon: mdiHistory, routeName: 'trail', action: 'trail.read' },
   { title: 'Tank check', icon: mdiWaterOutline, routeName: 'tank-check', action: 'tools.use' },
+  { title: 'Skimmer fit', icon: mdiScaleUnbalanced, routeName: 'skimmer-fit', action: 'tools.use' },
   { title: 'Set-up', icon: mdiCogOutline, routeName: 'setup', action: 'setup.manage' },
   { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },
 ];

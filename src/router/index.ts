@@ -137,6 +137,12 @@ export const routes: RouteRecordRaw[] = [
         component: () => import('@/views/TankCheckView.vue'),
         meta: { action: 'tools.use', title: 'Tank check' },
       },
+      {
+        path: 'tools/skimmer-fit',
+        name: 'skimmer-fit',
+        component: () => import('@/views/SkimmerFitView.vue'),
+        meta: { action: 'tools.use', title: 'Skimmer fit' },
+      },
       { path: 'mail', name: 'mail', component: () => import('@/views/MailSettingsView.vue'), meta: { title: 'Mail' } },
       {
         path: 'waiting-for-access',

@@ -56,6 +56,7 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
       { name: 'follow-ups', path: '/follow-ups', as: coordinator },
       { name: 'mail', path: '/mail', as: coordinator },
       { name: 'tank-check', path: '/tools/tank-check', as: 'operator@decant.test' },
+      { name: 'skimmer-fit', path: '/tools/skimmer-fit', as: coordinator },
       { name: 'setup', path: '/setup', as: coordinator },
       {
         name: 'limit-version',

@@ -53,3 +53,64 @@ describe('the tank check', () => {
     await check(metric, await t.sessionFor('admin@decant.test')).expect(403);
   });
 });
+
+/**
+ * Skimmer fit by the 2× rule (common practice, no published source: rate a skimmer at least
+ * twice the removal it must do), against the oil log of the last 90 days, per hour run.
+ */
+describe('skimmer fit', () => {
+  let t: TestApp;
+  let coordinator: string;
+  let siteId: string;
+  beforeAll(async () => {
+    t = await startTestApp();
+    coordinator = await t.sessionFor('coordinator@decant.test');
+    [{ id: siteId }] = await t.dataSource.query(`SELECT id FROM site WHERE name = 'Tamsin Creek Works'`);
+  });
+  afterAll(() => t.close());
+
+  const equipment = async (name: string, ratedCapacity: number) =>
+    (
+      await request(t.app)
+        .post('/api/equipment')
+        .set('cookie', coordinator)
+        .send({ siteId, name, kind: 'tube-skimmer', ratedCapacity, ratedUnit: 'L/h', upkeepIntervalDays: 30 })
+        .expect(201)
+    ).body.id as string;
+  const log = (equipmentId: string, daysAgo: number, litres: number, hoursRun: number) =>
+    request(t.app)
+      .post('/api/oil-log')
+      .set('cookie', coordinator)
+      .send({
+        equipmentId,
+        collectedOn: new Date(Date.now() - daysAgo * 86_400_000).toISOString().slice(0, 10),
+        volume: litres,
+        unit: 'L',
+        hoursRun,
+      })
+      .expect(201);
+
+  it('flags equipment rated below twice its peak removal, and names the rating it should have', async () => {
+    // 1, 2 and 3 L over 8 h runs: typical 0.25 L/h, peak 0.375 L/h, so a rating of 0.75 L/h at least.
+    const small = await equipment('Fit test, small tube', 0.7);
+    const ample = await equipment('Fit test, ample tube', 0.8);
+    for (const id of [small, ample])
+      for (const [day, litres] of [
+        [3, 1],
+        [2, 2],
+        [1, 3],
+      ] as const)
+        await log(id, day, litres, 8);
+    const { body } = await request(t.app).get(`/api/tools/skimmer-fit?siteId=${siteId}`).set('cookie', coordinator).expect(200);
+    const item = (id: string) => body.items.find((i: { equipmentId: string }) => i.equipmentId === id);
+    expect(item(small)).toMatchObject({ daysLogged: 3, verdict: 'undersized' });
+    expect(item(small).typicalLph).toBeCloseTo(0.25, 9);
+    expect(item(small).peakLph).toBeCloseTo(0.375, 9);
+    expect(item(small).recommendedLph).toBeCloseTo(0.75, 9);
+    expect(item(ample).verdict).toBe('fits');
+    expect(body.caution).toContain('Common practice, no published source');
+    // The oil log's own rate flag uses the same rule on the same equipment.
+    const listed = await request(t.app).get(`/api/equipment?siteId=${siteId}`).set('cookie', coordinator).expect(200);
+    expect(listed.body.items.find((e: { id: string }) => e.id === ample).likelyUndersized).toBe(false);
+  });
+});
