@@ -363,4 +363,33 @@ describe('notices by mail', () => {
     expect(await messagesAbout('Reminder test aa02')).toHaveLength(0);
     expect((await messagesAbout('Reminder test aa01')).length).toBeGreaterThan(0);
   });
+
+  it('opens a signed-copy deadline from the calendar, without a compile, and mails it (40 CFR 262.42)', async () => {
+    const shipped = new Date(Date.now() - 50 * 86_400_000).toISOString().slice(0, 10);
+    const created = await request(t.app)
+      .post('/api/shipments')
+      .set('cookie', coordinator)
+      .send({
+        siteId: ids.north,
+        shippedOn: shipped,
+        documentKind: 'hazardous-waste-manifest',
+        documentNumber: '100200300SWP',
+        transporterName: 'Test Hauler',
+        transporterEpaId: 'ILR000000001',
+        receiverName: 'Test Recycler',
+        receiverEpaId: 'ILD000000002',
+        wasteDescription: 'Used oil',
+        quantity: 220,
+        quantityUnit: 'gal',
+      })
+      .expect(201);
+    await sweepDeadlines(t.dataSource);
+    const [followUp] = await t.dataSource.query(`SELECT id, kind FROM follow_up WHERE source_entity = 'shipment' AND source_id = $1`, [
+      created.body.id,
+    ]);
+    expect(followUp.kind).toBe('contact-transporter-and-facility');
+    const mails = await t.dataSource.query(`SELECT kind, recipient FROM mail_outbox WHERE event_key = $1`, [`opened:${followUp.id}`]);
+    expect(mails.length).toBeGreaterThan(0);
+    expect(mails.every((m: { kind: string }) => m.kind === 'shipment-copy')).toBe(true);
+  });
 });

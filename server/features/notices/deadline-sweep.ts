@@ -1,5 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import { queueMail } from '../../kernel/mail/outbox.js';
+import { findPeriod } from '../periods/periods.repository.js';
+import { openSiteDeadlines } from '../periods/periods.service.js';
 import { siteRecipients } from '../../kernel/mail/recipients.js';
 import { followUpPath, localTime, mailKindOf } from './follow-up-mail.js';
 
@@ -58,8 +60,23 @@ interface OpenFollowUpRow {
   created_at: Date;
 }
 
-/** Queues the reminders now due for open follow-ups, and the report-due notices (14 and 3 days before). */
+/**
+ * Opens the deadlines that come from the calendar rather than from a compile (a signed copy not
+ * back, an upkeep check overdue, a report due within 7 days) for each permit's running period,
+ * then queues the reminders now due and the report-due notices (14 and 3 days before).
+ */
 export async function sweepDeadlines(db: DataSource, now = new Date()): Promise<number> {
+  await db.transaction(async (manager) => {
+    const running: Array<{ id: string }> = await manager.query(
+      `SELECT rp.id FROM reporting_period rp JOIN permit p ON p.id = rp.permit_id JOIN site s ON s.id = p.site_id
+        WHERE ($1::timestamptz AT TIME ZONE s.time_zone)::date BETWEEN rp.starts_on AND rp.ends_on`,
+      [now],
+    );
+    for (const { id } of running) {
+      const period = await findPeriod(manager, id);
+      if (period) await openSiteDeadlines(manager, period);
+    }
+  });
   return db.transaction(async (manager) => (await remindFollowUps(manager, now)) + (await remindReportsDue(manager, now)));
 }
 

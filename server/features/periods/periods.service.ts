@@ -136,7 +136,7 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
  * Deadlines that do not come from the results: signed copies not back (40 CFR 262.42), the
  * report due within 7 days, and upkeep checks past their interval. Each opens once.
  */
-async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): Promise<void> {
+export async function openSiteDeadlines(manager: EntityManager, period: PeriodRecord): Promise<void> {
   const today = period.today;
   const endOfDay = (day: string) => DateTime.fromISO(day, { zone: period.timeZone }).endOf('day').toJSDate();
   for (const shipment of await shipmentsAwaitingSignedCopy(manager, period.siteId)) {
