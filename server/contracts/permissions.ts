@@ -63,7 +63,8 @@ export const permissionTable: Record<Action, readonly Role[]> = {
   'follow-ups.read': recordKeepers,
   'follow-ups.close': ['coordinator'],
   'trail.read': ['administrator', 'coordinator', 'auditor'],
-  'tools.use': recordKeepers,
+  // Calculators for the equipment: for those who run it and answer for it, not for the auditor.
+  'tools.use': ['coordinator', 'operator'],
   // Operators correct only their own entries, within their first 24 hours (oil-log.service).
   'oil-log.correct-any': ['coordinator'],
   // Once the hauler's signed copy is back, the papers are the coordinator's to change.

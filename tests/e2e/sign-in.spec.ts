@@ -6,8 +6,20 @@ import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 // What each role's navigation shows, from the permission table's areas.
 const expectedAreas: Record<string, string[]> = {
   administrator: ['Overview', 'Trail', 'People and access'],
-  coordinator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Reports', 'Follow-ups', 'Trail', 'Set-up'],
-  operator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Follow-ups'],
+  coordinator: [
+    'Overview',
+    'Lab',
+    'Oil log',
+    'Shipments',
+    'Periods',
+    'Reports',
+    'Follow-ups',
+    'Trail',
+    'Tank check',
+    'Skimmer fit',
+    'Set-up',
+  ],
+  operator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Follow-ups', 'Tank check', 'Skimmer fit'],
   auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Reports', 'Follow-ups', 'Trail'],
 };
 

@@ -51,6 +51,7 @@ describe('the tank check', () => {
     const usBad = await check({ ...metric, unitSystem: 'us', waterTemperature: 20 }).expect(400);
     expect(usBad.body.error.fields.waterTemperature).toBe('Use 32 to 176 °F');
     await check(metric, await t.sessionFor('admin@decant.test')).expect(403);
+    await check(metric, await t.sessionFor('auditor@decant.test')).expect(403);
   });
 });
 

@@ -52,7 +52,6 @@ const expected: Record<Role, Action[]> = {
     'periods.read',
     'follow-ups.read',
     'trail.read',
-    'tools.use',
     'trail.read-siteless',
   ],
 };
