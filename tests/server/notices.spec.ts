@@ -5,7 +5,7 @@ import { startMailInbox, type MailInbox } from '../../server/dev/mail-inbox.js';
 import { openFollowUp } from '../../server/features/follow-ups/open-follow-up.js';
 import { queueDailyDigests } from '../../server/features/notices/daily-digest.js';
 import { sweepDeadlines } from '../../server/features/notices/deadline-sweep.js';
-import { deliverPendingMail, type MailSettings } from '../../server/kernel/mail/deliver-mail.js';
+import { deliverPendingMail, MAX_ATTEMPTS, type MailSettings } from '../../server/kernel/mail/deliver-mail.js';
 import { queueMail } from '../../server/kernel/mail/outbox.js';
 import { siteRecipients } from '../../server/kernel/mail/recipients.js';
 import { createMailTransport } from '../../server/kernel/mail/transport.js';
@@ -161,6 +161,32 @@ describe('notices by mail', () => {
     expect(a.sent + b.sent).toBe(people.length);
     const received = await messagesAbout('Outage test');
     expect(received.map((m) => m.to[0]!.address).sort()).toEqual(people.map((p) => p.email).sort());
+
+    // A mail refused on its last attempt is given up and shows on its follow-up as not delivered.
+    await inbox.stop();
+    const [target] = await t.dataSource.query(`SELECT id FROM follow_up WHERE site_id = $1 AND status = 'open' LIMIT 1`, [ids.north]);
+    await t.dataSource.transaction((manager) =>
+      queueMail(
+        manager,
+        {
+          eventKey: 'test:given-up',
+          kind: 'deadline',
+          followUpId: target.id,
+          content: { subject: 'Given-up test', lines: ['x'], path: '/', linkText: 'Open' },
+        },
+        people.slice(0, 1),
+      ),
+    );
+    await t.dataSource.query(`UPDATE mail_outbox SET attempts = $1 - 1 WHERE event_key = 'test:given-up'`, [MAX_ATTEMPTS]);
+    await deliverPendingMail(t.dataSource, mail);
+    const [givenUp] = await t.dataSource.query(`SELECT status, attempts FROM mail_outbox WHERE event_key = 'test:given-up'`);
+    expect(givenUp).toEqual({ status: 'failed', attempts: MAX_ATTEMPTS });
+    const listed = await request(t.app)
+      .get(`/api/follow-ups?siteId=${ids.north}&status=open&pageSize=100`)
+      .set('cookie', coordinator)
+      .expect(200);
+    expect(listed.body.items.find((f: { id: string }) => f.id === target.id).mail.failed).toBeGreaterThanOrEqual(1);
+    inbox = await startMailInbox(SMTP_PORT, WEB_PORT);
   });
 
   it('lists in the daily digest what is due and overdue at the person’s own sites', async () => {
