@@ -1,9 +1,10 @@
+import { DateTime } from 'luxon';
 import { PDFParse } from 'pdf-parse';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMailInbox, type MailInbox } from '../../server/dev/mail-inbox.js';
 import { openFollowUp } from '../../server/features/follow-ups/open-follow-up.js';
-import { queueDailyDigests } from '../../server/features/notices/daily-digest.js';
+import { DIGEST_HOUR, queueDailyDigests } from '../../server/features/notices/daily-digest.js';
 import { sweepDeadlines } from '../../server/features/notices/deadline-sweep.js';
 import { deliverPendingMail, MAX_ATTEMPTS, type MailSettings } from '../../server/kernel/mail/deliver-mail.js';
 import { queueMail } from '../../server/kernel/mail/outbox.js';
@@ -189,8 +190,11 @@ describe('notices by mail', () => {
     inbox = await startMailInbox(SMTP_PORT, WEB_PORT);
   });
 
-  it('lists in the daily digest what is due and overdue at the person’s own sites', async () => {
-    const now = new Date();
+  it('lists in the daily digest what is due and overdue at the person’s own sites, at 07:00 their time', async () => {
+    // 07:00 today at the sites (the demo's are all in one zone), the hour the digest goes out.
+    const [{ time_zone: zone }] = await t.dataSource.query(`SELECT time_zone FROM site WHERE id = $1`, [ids.east]);
+    const now = DateTime.now().setZone(zone).set({ hour: DIGEST_HOUR, minute: 0, second: 0, millisecond: 0 }).toJSDate();
+    expect(await queueDailyDigests(t.dataSource, new Date(now.getTime() + 3 * 3600_000))).toBe(0);
     await t.dataSource.transaction((manager) =>
       openFollowUp(manager, {
         siteId: ids.east,
@@ -207,7 +211,7 @@ describe('notices by mail', () => {
         `SELECT m.params FROM mail_outbox m JOIN app_user u ON u.id = m.user_id WHERE m.kind = 'digest' AND u.email = $1 AND m.event_key = $2`,
         [
           email,
-          `digest:${(await t.dataSource.query(`SELECT id FROM app_user WHERE email = $1`, [email]))[0].id}:${now.toISOString().slice(0, 10)}`,
+          `digest:${(await t.dataSource.query(`SELECT id FROM app_user WHERE email = $1`, [email]))[0].id}:${DateTime.fromJSDate(now, { zone }).toISODate()}`,
         ],
       );
       return ((row?.params.lines ?? []) as string[]).join('\n');

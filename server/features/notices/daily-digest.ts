@@ -1,3 +1,4 @@
+import { DateTime } from 'luxon';
 import type { DataSource } from 'typeorm';
 import { queueMail } from '../../kernel/mail/outbox.js';
 import type { Recipient } from '../../kernel/mail/recipients.js';
@@ -11,13 +12,21 @@ interface DigestItem {
   due_at: Date;
 }
 
+/** The local hour the digest goes out at; the job runs hourly and picks the people whose morning it is. */
+export const DIGEST_HOUR = 7;
+
 /**
  * One mail a day per person who takes the digest: the open follow-ups at their sites that are
  * overdue or due within 7 days, overdue first. Nobody gets an empty digest.
  */
 export async function queueDailyDigests(db: DataSource, now = new Date()): Promise<number> {
   return db.transaction(async (manager) => {
-    const people: Recipient[] = await manager.query(`SELECT id, email, name, role FROM app_user WHERE active AND role IS NOT NULL`);
+    // Each person's morning is that of their first site (by name): the digest goes out at 07:00 there.
+    const people: Array<Recipient & { time_zone: string }> = await manager.query(
+      `SELECT DISTINCT ON (u.id) u.id, u.email, u.name, u.role, s.time_zone
+         FROM app_user u JOIN user_site us ON us.user_id = u.id JOIN site s ON s.id = us.site_id
+        WHERE u.active AND u.role IS NOT NULL ORDER BY u.id, s.name`,
+    );
     const items: DigestItem[] = await manager.query(
       `SELECT us.user_id, s.name AS site_name, s.time_zone, f.title, f.due_at
          FROM follow_up f JOIN site s ON s.id = f.site_id JOIN user_site us ON us.site_id = f.site_id
@@ -25,9 +34,11 @@ export async function queueDailyDigests(db: DataSource, now = new Date()): Promi
         ORDER BY f.due_at`,
       [now],
     );
-    const day = now.toISOString().slice(0, 10);
     let queued = 0;
     for (const person of people) {
+      const local = DateTime.fromJSDate(now, { zone: person.time_zone });
+      if (local.hour !== DIGEST_HOUR) continue;
+      const day = local.toISODate();
       const mine = items.filter((item) => item.user_id === person.id);
       if (mine.length === 0) continue;
       const overdue = mine.filter((item) => item.due_at.getTime() < now.getTime());

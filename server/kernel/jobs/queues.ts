@@ -16,13 +16,14 @@ export type QueueName = (typeof queues)[keyof typeof queues];
  */
 const CRON_QUEUE = '__pgboss__send-it';
 
-/** When each runs (cron, UTC). The digest goes out at 11:00 UTC, early morning in US time zones. */
+/** When each runs (cron, UTC). */
 export const schedules: Record<QueueName, string> = {
   'create-periods': '0 * * * *',
   'drop-stale-uploads': '30 * * * *',
   'deadline-sweep': '*/10 * * * *',
   'deliver-mail': '* * * * *',
-  'daily-digest': '0 11 * * *',
+  // Hourly: each person gets it at 07:00 in their site's zone (features/notices/daily-digest.ts).
+  'daily-digest': '0 * * * *',
 };
 
 /**
