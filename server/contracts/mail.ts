@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Role } from './permissions.js';
+import { can, type Role } from './permissions.js';
 
 /** What Decant mails about; each person chooses per kind how it reaches them. */
 export const mailKinds = ['violation', 'deadline', 'report-due', 'shipment-copy', 'upkeep', 'period-signed', 'digest'] as const;
@@ -36,7 +36,7 @@ export function defaultDelivery(role: Role | null, kind: MailKind): Delivery {
 
 /** Kinds a role may not turn off: a coordinator is the one who must notify within 24 hours. */
 export function mandatoryKinds(role: Role | null): MailKind[] {
-  return role === 'coordinator' ? ['violation'] : [];
+  return can(role, 'mail.violations-always') ? ['violation'] : [];
 }
 
 export const MailPreference = z.object({

@@ -38,6 +38,7 @@ export const actions = [
   'oil-log.correct-any',
   'shipments.change-after-signed-copy',
   'trail.read-siteless',
+  'mail.violations-always',
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -71,6 +72,8 @@ export const permissionTable: Record<Action, readonly Role[]> = {
   'shipments.change-after-signed-copy': ['coordinator'],
   // Trail entries of no site (people, sign-ins).
   'trail.read-siteless': ['administrator', 'auditor'],
+  // The one who must notify the authority within 24 hours hears of a violation at once, whatever they chose.
+  'mail.violations-always': ['coordinator'],
 };
 
 export function can(role: Role | null | undefined, action: Action): boolean {

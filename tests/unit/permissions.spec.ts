@@ -33,6 +33,7 @@ const expected: Record<Role, Action[]> = {
     'tools.use',
     'oil-log.correct-any',
     'shipments.change-after-signed-copy',
+    'mail.violations-always',
   ],
   operator: [
     'sites.read',
