@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import type { MailKind } from '../../contracts/mail.js';
+import { siteDateTime } from '../../contracts/site-time.js';
 import type { Role } from '../../contracts/permissions.js';
 import { queueMail } from '../../kernel/mail/outbox.js';
 import { siteRecipients } from '../../kernel/mail/recipients.js';
@@ -75,19 +76,7 @@ export async function mailFollowUpOpened(manager: EntityManager, followUp: Opene
   );
 }
 
-/** A moment as "YYYY-MM-DD HH:MM" in a time zone, the app's one date format. */
-export function localTime(at: Date, timeZone: string): string {
-  const parts = new Intl.DateTimeFormat('en-CA', {
-    timeZone,
-    year: 'numeric',
-    month: '2-digit',
-    day: '2-digit',
-    hour: '2-digit',
-    minute: '2-digit',
-    hourCycle: 'h23',
-  }).formatToParts(at);
-  const part = (type: string) => parts.find((p) => p.type === type)?.value ?? '';
-  return `${part('year')}-${part('month')}-${part('day')} ${part('hour')}:${part('minute')}`;
-}
+/** A moment as "YYYY-MM-DD HH:MM" in a time zone: the app's one date format (contracts/site-time.ts). */
+export const localTime = (at: Date, timeZone: string) => siteDateTime(at, timeZone);
 
 export { followUpPath };
