@@ -3,7 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { upkeepItems } from '../../server/contracts/oil.js';
 import { openFollowUp, type FollowUpToOpen } from '../../server/features/follow-ups/open-follow-up.js';
-import { exceedanceSourceId, upkeepDueSourceId } from '../../server/features/periods/finding-ids.js';
+import { exceedanceSourceId, missedMonitoringSourceId, upkeepDueSourceId } from '../../server/features/periods/finding-ids.js';
 import { certificateBody, demoIds } from '../fixtures/lab.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
 
@@ -159,5 +159,45 @@ describe('follow-ups closed by what resolves them', () => {
     earlier.samples[0]!.results[0]!.analysedAt = '2026-04-11T10:00';
     await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(earlier).expect(201);
     expect((await state(followUp)).status).toBe('open');
+  });
+
+  it('closes a missed-sample follow-up when a late certificate brings the month up to the permit count, not before', async () => {
+    // A point of its own, so other tests' samples do not count: two oil-and-grease grabs a month.
+    const [point] = await t.dataSource.query(
+      `INSERT INTO discharge_point (site_id, code, name, receiving) VALUES ($1, $2, 'Missed-sample test point', 'sewer') RETURNING id`,
+      [ids.north, `MS-${randomUUID().slice(0, 8)}`],
+    );
+    await t.dataSource.query(
+      `INSERT INTO permit_limit (permit_id, discharge_point_id, parameter_id, statistic, value, unit, frequency_count, frequency_per,
+         sample_type, applies_from, series_id)
+       VALUES ($1, $2, $3, 'daily-maximum', 100, 'mg/L', 2, 'month', 'grab', '2026-01-01', gen_random_uuid())`,
+      [ids.northPermit, point.id, ids.hem],
+    );
+    const followUp = await open({
+      siteId: ids.north,
+      kind: 'missed-sample',
+      sourceEntity: 'missed-monitoring',
+      sourceId: missedMonitoringSourceId({ dischargePointId: point.id, parameterId: ids.hem }, '2026-05'),
+    });
+    const sampleOn = async (day: string) => {
+      const body = certificateBody(ids, { receivedOn: day });
+      Object.assign(body.samples[0]!, { dischargePointId: point.id, collectedAt: `${day}T09:30` });
+      body.samples[0]!.results[0]!.analysedAt = `${day}T15:00`;
+      return (await request(t.app).post('/api/lab-certificates').set('cookie', coordinator).send(body).expect(201)).body as {
+        id: string;
+        reportNumber: string;
+      };
+    };
+    await sampleOn('2026-05-05');
+    expect((await state(followUp)).status).toBe('open'); // 1 of 2
+    await sampleOn('2026-06-03');
+    expect((await state(followUp)).status).toBe('open'); // June's sample does not count for May
+    const second = await sampleOn('2026-05-19');
+    expect(await state(followUp)).toMatchObject({
+      closing_note: `Closed by Decant: the missed sample was taken: its results arrived with certificate ${second.reportNumber}`,
+      closed_by_entity: 'lab-certificate',
+      closed_by_id: second.id,
+    });
+    expect(['done', 'done-late']).toContain((await state(followUp)).status);
   });
 });

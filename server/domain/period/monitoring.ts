@@ -118,3 +118,9 @@ export function monitoringChecker(period: { start: string; end: string; asOf?: s
     return { taken, required: counts.size * limit.frequencyCount, missed };
   };
 }
+
+/** The calendar units (day, ISO week, month, quarter) a sample taken on `day` counts in, whatever the frequency. */
+export function monitoringUnitsOf(day: string): string[] {
+  const date = DateTime.fromISO(day, { zone: 'UTC' });
+  return (['day', 'week', 'month', 'quarter'] as const).map((per) => unitKey(date, per));
+}

@@ -1,4 +1,4 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { FollowUpQuery, FollowUpView } from '../../contracts/follow-ups.js';
 import type { Page } from '../../contracts/paging.js';
 import { queryPage } from '../../db/page.js';
@@ -163,4 +163,20 @@ export async function saveAwareness(manager: EntityManager, id: string, awareAt:
     .setParameters({ awareAt })
     .execute();
   return view(await manager.findOneByOrFail(FollowUp, { id }));
+}
+
+/** The source ids, among `sourceIds`, of the site's open follow-ups of one kind. */
+export async function openFollowUpSources(
+  db: Db,
+  siteId: string,
+  kind: string,
+  sourceEntity: string,
+  sourceIds: string[],
+): Promise<string[]> {
+  if (sourceIds.length === 0) return [];
+  const rows = await db.getRepository(FollowUp).find({
+    select: { sourceId: true },
+    where: { siteId, kind, sourceEntity, sourceId: In(sourceIds), status: 'open' },
+  });
+  return rows.map((row) => row.sourceId);
 }

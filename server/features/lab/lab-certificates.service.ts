@@ -14,6 +14,7 @@ import { conflict, invalid, notFound } from '../../errors/app-error.js';
 import { checkUpload, claimStoredFiles, sendStoredFile, storeFile, type Upload } from '../../kernel/files/stored-files.js';
 import { closeResolvedFollowUps } from '../follow-ups/close-resolved.js';
 import { exceedancesRepeatedBy } from '../periods/finding-ids.js';
+import { closeTakenMissedSamples } from '../periods/missed-samples-taken.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { writeCertificateContent } from './certificate-content.js';
 import { computeCertificateFlags, limitsInForce, type LimitsInForce } from './lab-flags.service.js';
@@ -140,6 +141,19 @@ export class LabCertificatesService {
     await writeCertificateContent(manager, id, site, request, { replacing: false });
     await computeCertificateFlags(manager, id, { limits });
     await closeRepeatedExceedances(manager, user, id, request);
+    await closeTakenMissedSamples(
+      manager,
+      user,
+      request.siteId,
+      request.samples.flatMap((sample) =>
+        sample.results.map((result) => ({
+          dischargePointId: sample.dischargePointId,
+          parameterId: result.parameterId,
+          day: sample.collectedAt.slice(0, 10),
+        })),
+      ),
+      { entity: 'lab-certificate', id, note: `the missed sample was taken: its results arrived with certificate ${request.reportNumber}` },
+    );
     return id;
   }
 

@@ -203,3 +203,12 @@ export async function shipmentsAwaitingSignedCopy(
 export async function saveSubmissionDate(manager: EntityManager, periodId: string, submittedOn: string): Promise<void> {
   await manager.update(ReportingPeriod, { id: periodId }, { submittedOn });
 }
+
+/** The site's periods whose span holds any of the days, with what a summary needs. */
+export async function periodsCovering(db: Db, siteId: string, days: string[]): Promise<PeriodRecord[]> {
+  const rows: PeriodRow[] = await db.query(
+    `${periodSelect} WHERE p.site_id = $1 AND EXISTS (SELECT 1 FROM unnest($2::date[]) d WHERE d BETWEEN rp.starts_on AND rp.ends_on)`,
+    [siteId, days],
+  );
+  return rows.map(record);
+}
