@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { upkeepItems } from '../../server/contracts/oil.js';
+import { upkeepChecklists } from '../../server/contracts/upkeep-checklists.js';
 import { openFollowUp, type FollowUpToOpen } from '../../server/features/follow-ups/open-follow-up.js';
 import { exceedanceSourceId, missedMonitoringSourceId, upkeepDueSourceId } from '../../server/features/periods/finding-ids.js';
 import { certificateBody, demoIds } from '../fixtures/lab.js';
@@ -90,22 +90,26 @@ describe('follow-ups closed by what resolves them', () => {
 
   it('closes an overdue upkeep check when the check of that equipment is done, not when another is', async () => {
     const list = await request(t.app).get(`/api/equipment?siteId=${ids.north}`).set('cookie', operator).expect(200);
-    const [first, second] = list.body.items as Array<{ id: string }>;
+    const [first, second] = list.body.items as Array<{ id: string; kind: keyof typeof upkeepChecklists }>;
     const followUp = await open({
       siteId: ids.north,
       kind: 'upkeep-due',
       sourceEntity: 'equipment',
       sourceId: upkeepDueSourceId(first!.id, daysAgo(20)),
     });
-    const check = (equipmentId: string) =>
+    const check = (equipment: { id: string; kind: keyof typeof upkeepChecklists }) =>
       request(t.app)
         .post('/api/upkeep-checks')
         .set('cookie', operator)
-        .send({ equipmentId, checkedOn: daysAgo(0), items: upkeepItems.map((item) => ({ key: item.key, outcome: 'pass', note: '' })) })
+        .send({
+          equipmentId: equipment.id,
+          checkedOn: daysAgo(0),
+          items: upkeepChecklists[equipment.kind].map((item) => ({ key: item.key, outcome: 'pass', note: '' })),
+        })
         .expect(201);
-    await check(second!.id);
+    await check(second!);
     expect((await state(followUp)).status).toBe('open');
-    const done = await check(first!.id);
+    const done = await check(first!);
     expect(await state(followUp)).toMatchObject({ status: 'done', closed_by_entity: 'upkeep-check', closed_by_id: done.body.id });
   });
 

@@ -1,7 +1,7 @@
 import { DateTime } from 'luxon';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { upkeepItems } from '../../server/contracts/oil.js';
+import { upkeepChecklists } from '../../server/contracts/upkeep-checklists.js';
 import { demoIds } from '../fixtures/lab.js';
 import { startTestApp, type TestApp } from '../helpers/test-app.js';
 
@@ -109,7 +109,11 @@ describe('oil log, upkeep and shipments', () => {
 
   describe('upkeep checks', () => {
     it('opens one follow-up for a failed item', async () => {
-      const items = upkeepItems.map((item) => ({ key: item.key, outcome: item.key === 'no-leaks' ? 'fail' : 'pass', note: '' }));
+      const items = upkeepChecklists['belt-skimmer'].map((item) => ({
+        key: item.key,
+        outcome: item.key === 'no-leaks' ? 'fail' : 'pass',
+        note: '',
+      }));
       const created = await request(t.app)
         .post('/api/upkeep-checks')
         .set('cookie', operator)
@@ -125,7 +129,23 @@ describe('oil log, upkeep and shipments', () => {
         .set('cookie', operator)
         .send({ equipmentId: belt.id, checkedOn: today(), items: [{ key: 'no-leaks', outcome: 'pass' }] })
         .expect(400);
-      expect(response.body.error.fields).toHaveProperty('items');
+      expect(response.body.error.fields.items).toBe('Answer “Wipers or scrapers touch the medium evenly”: pass, fail or not applicable');
+    });
+    it("gives a separator a separator's checklist, and refuses a skimmer's items for it (common practice, no published source)", async () => {
+      const list = await request(t.app).get(`/api/equipment?siteId=${ids.north}`).set('cookie', operator).expect(200);
+      const separator = list.body.items.find((e: { kind: string }) => e.kind === 'oil-water-separator');
+      const checks = await request(t.app).get(`/api/upkeep-checks?equipmentId=${separator.id}`).set('cookie', operator).expect(200);
+      expect(checks.body.checklist.map((item: { key: string }) => item.key)).toEqual(
+        upkeepChecklists['oil-water-separator'].map((item) => item.key),
+      );
+      expect(checks.body.checklist.map((item: { key: string }) => item.key)).not.toContain('wipers-even');
+      const skimmerItems = upkeepChecklists['belt-skimmer'].map((item) => ({ key: item.key, outcome: 'pass' }));
+      const refused = await request(t.app)
+        .post('/api/upkeep-checks')
+        .set('cookie', operator)
+        .send({ equipmentId: separator.id, checkedOn: today(), items: skimmerItems })
+        .expect(400);
+      expect(refused.body.error.fields.items).toBe('“wipers-even” is not on the checklist of this kind of equipment');
     });
   });
 

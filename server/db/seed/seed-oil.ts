@@ -1,6 +1,6 @@
 import { DateTime } from 'luxon';
 import type { EntityManager } from 'typeorm';
-import { upkeepItems } from '../../contracts/oil.js';
+import { upkeepChecklists, upkeepItemLabels } from '../../contracts/upkeep-checklists.js';
 import { usedOilFlags } from '../../domain/used-oil.js';
 
 /**
@@ -65,6 +65,18 @@ const equipmentBySite = {
   ],
 } as const;
 
+/** What the demo operators wrote beside a failed item. */
+const failureNotes: Record<string, string> = {
+  'wipers-even': 'Left wiper worn, streaks of oil past it',
+  'trough-clear': 'Chips and swarf packed in the trough',
+  'oil-layer': 'Oil layer above the mark: pumped out the same day',
+  'coalescer-clean': 'Coalescer pack fouled with fines: rinsed and refitted',
+  'disc-immersion': 'Level dropped below the disc edge after the weekend',
+  'drum-immersion': 'Drum barely touching the surface at low level',
+  'tube-condition': 'Tube hardened near the drive: ordered a new one',
+  'scrapers-even': 'Scraper block worn on one side',
+};
+
 const carriers = {
   transporter: { name: 'Kestrel Fluid Haulers', epaId: 'ILR000417233' },
   receiver: { name: 'Marrowby Oil Recovery', epaId: 'ILD000982114' },
@@ -116,21 +128,12 @@ export async function seedOil(
         site.key === 'north' && index === 0 ? localToday.minus({ days: spec.interval + 3 }) : localToday.minus({ days: 1 });
       for (let day = start.plus({ days: 3 }); day <= lastCheckBefore; day = day.plus({ days: spec.interval })) {
         check += 1;
-        const failing = (check + index + salt) % 11 === 0 ? (check % 2 ? 'wipers-even' : 'trough-clear') : null;
-        const items = upkeepItems.map((item) => ({
+        const checklist = upkeepChecklists[spec.kind];
+        const failing = (check + index + salt) % 11 === 0 ? checklist[check % 2 ? 0 : 2]!.key : null;
+        const items = checklist.map((item) => ({
           key: item.key,
-          outcome:
-            item.key === failing
-              ? 'fail'
-              : spec.kind === 'oil-water-separator' && ['wipers-even', 'medium-tracking', 'medium-immersed'].includes(item.key)
-                ? 'not-applicable'
-                : 'pass',
-          note:
-            item.key === failing
-              ? failing === 'wipers-even'
-                ? 'Left wiper worn, streaks of oil past it'
-                : 'Chips and swarf packed in the trough'
-              : '',
+          outcome: item.key === failing ? 'fail' : 'pass',
+          note: item.key === failing ? (failureNotes[item.key] ?? 'Out of order at the check') : '',
           photoFileId: null,
         }));
         const [row] = await manager.query(
@@ -153,7 +156,7 @@ export async function seedOil(
             [
               site.id,
               row.id,
-              `Fix ${spec.name}: ${failing === 'wipers-even' ? 'wipers' : 'trough'}`,
+              `Fix ${spec.name}: ${upkeepItemLabels[failing]!.toLowerCase()}`,
               day.plus({ days: 7 }).toJSDate(),
               day.plus({ days: 2 }).toJSDate(),
             ],

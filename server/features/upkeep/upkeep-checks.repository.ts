@@ -18,10 +18,10 @@ const view = (check: UpkeepCheck, checkedByName: string): UpkeepCheckView => ({
   checkedByName,
 });
 
-export type EquipmentRef = Pick<Equipment, 'id' | 'siteId' | 'name'>;
+export type EquipmentRef = Pick<Equipment, 'id' | 'siteId' | 'name' | 'kind'>;
 
 export function findEquipmentRef(db: Db, id: string): Promise<EquipmentRef | null> {
-  return db.getRepository(Equipment).findOne({ where: { id }, select: { id: true, siteId: true, name: true } });
+  return db.getRepository(Equipment).findOne({ where: { id }, select: { id: true, siteId: true, name: true, kind: true } });
 }
 
 /** The latest 200 checks of a piece of equipment, each with who made it. */

@@ -1,7 +1,8 @@
 import type { Response } from 'express';
 import { DateTime } from 'luxon';
 import type { DataSource } from 'typeorm';
-import { upkeepItems, type UpkeepCheckRequest, type UpkeepCheckView } from '../../contracts/oil.js';
+import type { UpkeepCheckRequest, UpkeepCheckView } from '../../contracts/oil.js';
+import { upkeepChecklists, upkeepItemLabels } from '../../contracts/upkeep-checklists.js';
 import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import { invalid, notFound } from '../../errors/app-error.js';
@@ -15,6 +16,16 @@ import { findEquipmentRef, findUpkeepChecks, insertUpkeepCheck } from './upkeep-
 
 const photoTypes = ['image/jpeg', 'image/png', 'image/webp', 'image/heic'];
 
+/** A check answers each item of its equipment kind's checklist once, and nothing else. */
+function assertWholeChecklist(kind: string, items: UpkeepCheckRequest['items']): void {
+  const checklist = upkeepChecklists[kind as keyof typeof upkeepChecklists];
+  const answered = new Set(items.map((item) => item.key));
+  const unknown = items.find((item) => !checklist.some((known) => known.key === item.key));
+  if (unknown) throw invalid({ items: `“${unknown.key}” is not on the checklist of this kind of equipment` });
+  const missing = checklist.find((item) => !answered.has(item.key));
+  if (missing) throw invalid({ items: `Answer “${missing.label}”: pass, fail or not applicable` });
+}
+
 /** Dated checklists per piece of equipment; a failed item opens a follow-up. */
 export class UpkeepChecksService {
   constructor(private readonly dataSource: DataSource) {}
@@ -22,7 +33,10 @@ export class UpkeepChecksService {
   async list(user: CurrentUser, equipmentId: string) {
     const equipment = await findEquipmentRef(this.dataSource, equipmentId);
     assertSiteVisible(user, equipment?.siteId, 'Equipment');
-    return { items: await findUpkeepChecks(this.dataSource, equipmentId), checklist: upkeepItems };
+    return {
+      items: await findUpkeepChecks(this.dataSource, equipmentId),
+      checklist: upkeepChecklists[equipment!.kind as keyof typeof upkeepChecklists],
+    };
   }
 
   /**
@@ -53,6 +67,7 @@ export class UpkeepChecksService {
       const equipment = await findEquipmentRef(manager, request.equipmentId);
       if (!equipment || !user.siteIds.includes(equipment.siteId)) throw invalid({ equipmentId: 'No such equipment at your sites' });
       if (request.checkedOn > (await siteToday(manager, equipment.siteId))) throw invalid({ checkedOn: 'Cannot be in the future' });
+      assertWholeChecklist(equipment.kind, request.items);
       const photoIds = request.items.map((item) => item.photoFileId).filter((id): id is string => id !== null);
       if (photoIds.length !== new Set(photoIds).size) throw invalid({ items: 'Each photo belongs to one item' });
       const failed = request.items.filter((item) => item.outcome === 'fail');
@@ -64,7 +79,7 @@ export class UpkeepChecksService {
         field: 'items',
       });
       if (failed.length > 0) {
-        const labels = failed.map((item) => upkeepItems.find((known) => known.key === item.key)!.label.toLowerCase());
+        const labels = failed.map((item) => upkeepItemLabels[item.key]!.toLowerCase());
         await openFollowUp(manager, {
           siteId: equipment.siteId,
           kind: 'upkeep-failed',
