@@ -13,6 +13,16 @@ export const equipmentKinds = [
   'sump',
 ] as const;
 
+export const equipmentKindLabels: Record<(typeof equipmentKinds)[number], string> = {
+  'belt-skimmer': 'Belt skimmer',
+  'drum-skimmer': 'Drum skimmer',
+  'disc-skimmer': 'Disc skimmer',
+  'tube-skimmer': 'Tube skimmer',
+  'mop-skimmer': 'Mop skimmer',
+  'oil-water-separator': 'Oil-water separator',
+  sump: 'Sump',
+};
+
 export const EquipmentFields = z.object({
   siteId: uuid,
   name: z.string().trim().min(1, 'Enter a name').max(120),
@@ -24,6 +34,8 @@ export const EquipmentFields = z.object({
   upkeepIntervalDays: z.number().int().min(1).max(366),
   /** Lube oils are about 0.85–0.90; 0.88 is Decant's default. */
   specificGravity: z.number().gt(0.5).lt(1.2).default(0.88),
+  /** The discharge point whose water passes through it, if any. */
+  dischargePointId: uuid.nullable().default(null),
   active: z.boolean().default(true),
 });
 export const CreateEquipmentRequest = EquipmentFields;

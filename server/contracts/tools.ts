@@ -71,8 +71,56 @@ export interface SkimmerFitView {
     typicalLph: number | null;
     peakLph: number | null;
     ratedLph: number;
+    /** The removal the sheet's estimated oil load asks for, per hour run, L/h; null without a sheet or an estimate. */
+    sheetNeededLph: number | null;
+    /** Which figure sized it: the larger of the log's peak and the sheet's estimate. */
+    sizedFrom: 'oil-log' | 'sheet' | null;
     recommendedLph: number | null;
     verdict: 'fits' | 'undersized' | 'no-log';
+    /** Version of the application sheet the notes read, or null without one. */
+    sheetVersion: number | null;
+    /** How the kind meets the tank, and what to watch for, each a short reason (common practice). */
+    notes: Array<{ topic: string; weight: 'concern' | 'advice'; text: string }>;
   }>;
   caution: string;
+}
+
+/** A tank check kept as a dated record: for a piece of equipment, and as evidence of a follow-up. */
+export const SaveTankCheckRequest = z.object({
+  siteId: z.uuid('Not a valid id'),
+  equipmentId: z.uuid('Not a valid id').nullable().default(null),
+  followUpId: z.uuid('Not a valid id').nullable().default(null),
+  input: TankCheckRequest,
+});
+export type SaveTankCheckRequest = z.output<typeof SaveTankCheckRequest>;
+
+export const TankCheckListQuery = z
+  .object({ equipmentId: z.uuid('Not a valid id').optional(), followUpId: z.uuid('Not a valid id').optional() })
+  .refine((query) => query.equipmentId || query.followUpId, { message: 'Name the equipment or the follow-up', path: ['equipmentId'] });
+
+export const AttachTankCheckRequest = z.object({ followUpId: z.uuid('Not a valid id') });
+
+export interface SavedTankCheck {
+  id: string;
+  siteId: string;
+  equipmentId: string | null;
+  equipmentName: string | null;
+  followUpId: string | null;
+  followUpTitle: string | null;
+  input: TankCheckRequest;
+  result: TankCheckView;
+  checkedByName: string;
+  checkedAt: string;
+}
+
+/** Where a tank check starts from: a piece of equipment, or the equipment at the point of a follow-up's result. */
+export const TankCheckStartQuery = z
+  .object({ equipmentId: z.uuid('Not a valid id').optional(), followUpId: z.uuid('Not a valid id').optional() })
+  .refine((query) => query.equipmentId || query.followUpId, { message: 'Name the equipment or the follow-up', path: ['equipmentId'] });
+
+export interface TankCheckStart {
+  siteId: string;
+  followUp: { id: string; title: string; pointCode: string | null } | null;
+  /** The equipment to check, each with the check its application sheet calls for (null without a sheet). */
+  equipment: Array<{ id: string; name: string; kind: string; input: TankCheckRequest | null }>;
 }

@@ -20,6 +20,9 @@ export async function grantAppRole(dataSource: DataSource, role: string): Promis
     `REVOKE INSERT, UPDATE, DELETE, TRUNCATE ON trail_chain_head FROM ${name}`,
     // Signed revisions and amendments are appended, never changed (their triggers refuse it too).
     `REVOKE UPDATE, DELETE, TRUNCATE ON period_signature, period_amendment FROM ${name}`,
+    // Application sheets are appended versions; tank checks are kept as run (their triggers refuse changes too).
+    `REVOKE UPDATE, DELETE, TRUNCATE ON application_sheet FROM ${name}`,
+    `REVOKE DELETE, TRUNCATE ON tank_check FROM ${name}`,
     `REVOKE ALL ON migrations FROM ${name}`,
     // The job queue's schema: the app queues and works jobs; the owner created and migrates it.
     `GRANT USAGE ON SCHEMA pgboss TO ${name}`,

@@ -31,6 +31,8 @@ import { TrailEntry } from '../kernel/trail/trail-entry.entity.js';
 import { MailOutbox } from '../features/notices/mail-outbox.entity.js';
 import { AuthorityNotice } from '../features/notices/authority-notice.entity.js';
 import { MailPreferenceRow } from '../kernel/mail/mail-preference.entity.js';
+import { ApplicationSheet } from '../features/tools/application-sheet.entity.js';
+import { TankCheck } from '../features/tools/tank-check.entity.js';
 
 export const entities = [
   Company,
@@ -64,4 +66,6 @@ export const entities = [
   MailOutbox,
   MailPreferenceRow,
   AuthorityNotice,
+  ApplicationSheet,
+  TankCheck,
 ];

@@ -4,6 +4,8 @@
  * (both exact, NIST Handbook 44, Appendix C).
  */
 export const US_GALLON_LITRES = 3.785411784;
+/** 1 ft = 0.3048 m (exact, NIST Handbook 44, Appendix C). */
+export const FOOT_METRES = 0.3048;
 const POUND_KILOGRAMS = 0.45359237;
 
 interface UnitDefinition {

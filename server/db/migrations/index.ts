@@ -19,6 +19,7 @@ import { AwarenessTime1796266800000 } from './1796266800000-AwarenessTime.js';
 import { FollowUpsCloseThemselves1796270400000 } from './1796270400000-FollowUpsCloseThemselves.js';
 import { AuthorityNotices1796274000000 } from './1796274000000-AuthorityNotices.js';
 import { MailDropped1796277600000 } from './1796277600000-MailDropped.js';
+import { EquipmentTools1796281200000 } from './1796281200000-EquipmentTools.js';
 
 /** In the order they run. A merged migration is never edited: add a new one. */
 export const migrations = [
@@ -43,4 +44,5 @@ export const migrations = [
   FollowUpsCloseThemselves1796270400000,
   AuthorityNotices1796274000000,
   MailDropped1796277600000,
+  EquipmentTools1796281200000,
 ];

@@ -5,6 +5,7 @@ import { UserSite } from '../../kernel/people/user-site.entity.js';
 import { User } from '../../kernel/people/user.entity.js';
 import { demoCompany, demoPeople, demoSites } from './demo-scenario.js';
 import { seedLab } from './seed-lab.js';
+import { seedEquipmentSheets } from './seed-equipment-sheets.js';
 import { seedOil } from './seed-oil.js';
 import { seedFlowsAndPeriods } from './seed-periods.js';
 import { seedSignOff } from './seed-sign-off.js';
@@ -77,6 +78,7 @@ export async function seedDemo(dataSource: DataSource, mode: SeedMode, options: 
       ],
       operator.id,
     );
+    await seedEquipmentSheets(manager, [north.id, east.id], coordinator.id);
     await seedFlowsAndPeriods(
       manager,
       [

@@ -1,6 +1,7 @@
 import { Check, Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, UpdateDateColumn } from 'typeorm';
 import { numeric } from '../../db/numeric-transformer.js';
 import { Site } from '../../kernel/sites/site.entity.js';
+import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 
 @Check(
   'equipment_kind_check',
@@ -46,6 +47,14 @@ export class Equipment {
 
   @Column({ type: 'numeric', name: 'specific_gravity', precision: 4, scale: 3, default: () => '0.88', transformer: numeric })
   specificGravity: number;
+
+  /** The discharge point whose water passes through it, if any: a result there points to it. */
+  @Column({ type: 'uuid', name: 'discharge_point_id', nullable: true })
+  dischargePointId: string | null;
+
+  @ManyToOne(() => DischargePoint, { onDelete: 'RESTRICT' })
+  @JoinColumn({ name: 'discharge_point_id', foreignKeyConstraintName: 'equipment_discharge_point_id_fkey' })
+  dischargePoint?: DischargePoint;
 
   @Column({ type: 'boolean', default: true })
   active: boolean;

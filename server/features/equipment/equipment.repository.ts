@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Target } from '../../kernel/trail/traced-writes.js';
+import { DischargePoint } from '../discharge-points/discharge-point.entity.js';
 import { Equipment } from './equipment.entity.js';
 import type { EquipmentView } from '../../contracts/oil.js';
 import { likelyUndersized, ratingLitresPerHour } from '../../domain/oil-collection.js';
@@ -19,6 +20,7 @@ interface EquipmentRow {
   medium_material: string | null;
   upkeep_interval_days: number;
   specific_gravity: string;
+  discharge_point_id: string | null;
   active: boolean;
   last_checked_on: string | null;
   average_lph: string | null;
@@ -56,6 +58,7 @@ export async function findEquipment(db: Db, where: { siteIds: string[]; id?: str
       mediumMaterial: row.medium_material,
       upkeepIntervalDays: row.upkeep_interval_days,
       specificGravity: Number(row.specific_gravity),
+      dischargePointId: row.discharge_point_id,
       active: row.active,
       ratedLitresPerHour: rated,
       lastCheckedOn: row.last_checked_on,
@@ -79,4 +82,9 @@ export const equipmentTarget = {
 
 export async function findEquipmentSiteId(db: Db, id: string): Promise<string | undefined> {
   return (await db.getRepository(Equipment).findOne({ where: { id }, select: { siteId: true } }))?.siteId;
+}
+
+/** Whether a discharge point belongs to the site. */
+export async function pointIsAtSite(db: Db, pointId: string, siteId: string): Promise<boolean> {
+  return db.getRepository(DischargePoint).exists({ where: { id: pointId, siteId } });
 }

@@ -5,7 +5,8 @@ import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js'
 import { uniquely } from '../../db/uniquely.js';
 import { siteToday } from '../../kernel/site-today.js';
 import { createTraced, deleteTraced, updateTraced } from '../../kernel/trail/traced-writes.js';
-import { equipmentTarget as target, findEquipment, findEquipmentSiteId } from './equipment.repository.js';
+import { invalid } from '../../errors/app-error.js';
+import { equipmentTarget as target, findEquipment, findEquipmentSiteId, pointIsAtSite } from './equipment.repository.js';
 
 const duplicate = 'This site already has equipment with this name';
 
@@ -25,20 +26,28 @@ export class EquipmentService {
     return view!;
   }
 
-  create(user: CurrentUser, request: CreateEquipmentRequest) {
+  async create(user: CurrentUser, request: CreateEquipmentRequest) {
     assertSiteAllowed(user, request.siteId);
+    await this.assertPointAtSite(request.dischargePointId, request.siteId);
     return uniquely(() => createTraced(this.dataSource, user, target, request), 'name', duplicate);
   }
 
   update(user: CurrentUser, id: string, request: UpdateEquipmentRequest) {
     return uniquely(
       () =>
-        updateTraced(this.dataSource, user, target, id, request, async (_m, before) =>
-          assertSiteVisible(user, before.siteId as string, 'Equipment'),
-        ),
+        updateTraced(this.dataSource, user, target, id, request, async (_m, before) => {
+          assertSiteVisible(user, before.siteId as string, 'Equipment');
+          await this.assertPointAtSite(request.dischargePointId, before.siteId as string);
+        }),
       'name',
       duplicate,
     );
+  }
+
+  private async assertPointAtSite(pointId: string | null | undefined, siteId: string): Promise<void> {
+    if (pointId && !(await pointIsAtSite(this.dataSource, pointId, siteId))) {
+      throw invalid({ dischargePointId: 'No such discharge point at this site' });
+    }
   }
 
   async remove(user: CurrentUser, id: string): Promise<void> {

@@ -6,6 +6,7 @@ export interface EquipmentCollection {
   kind: string;
   ratedCapacity: number;
   ratedUnit: 'gal/h' | 'L/h';
+  mediumMaterial: string | null;
   days: number;
   /** The median and the highest day's collection per hour run, L/h; null without hours run. */
   typicalLph: number | null;
@@ -19,7 +20,7 @@ export interface EquipmentCollection {
 export async function equipmentCollection(db: DataSource, siteId: string, today: string): Promise<EquipmentCollection[]> {
   // Raw SQL: a median and a maximum per equipment in one pass over the log.
   const rows = await db.query(
-    `SELECT e.id, e.name, e.kind, e.rated_capacity::float8 AS rated_capacity, e.rated_unit,
+    `SELECT e.id, e.name, e.kind, e.rated_capacity::float8 AS rated_capacity, e.rated_unit, e.medium_material,
             count(l.id)::int AS days,
             percentile_cont(0.5) WITHIN GROUP (ORDER BY l.volume_litres / COALESCE(NULLIF(l.hours_run, 0), 24))::float8 AS typical,
             max(l.volume_litres / COALESCE(NULLIF(l.hours_run, 0), 24))::float8 AS peak
@@ -35,6 +36,7 @@ export async function equipmentCollection(db: DataSource, siteId: string, today:
     kind: row.kind as string,
     ratedCapacity: row.rated_capacity as number,
     ratedUnit: row.rated_unit as 'gal/h' | 'L/h',
+    mediumMaterial: (row.medium_material as string | null) ?? null,
     days: row.days as number,
     typicalLph: (row.typical as number | null) ?? null,
     peakLph: (row.peak as number | null) ?? null,

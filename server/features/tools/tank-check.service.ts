@@ -1,9 +1,6 @@
 import type { TankCheckRequest, TankCheckView } from '../../contracts/tools.js';
 import { checkTank } from '../../domain/tank-check.js';
-import { US_GALLON_LITRES } from '../../domain/units.js';
-
-/** 1 ft = 0.3048 m (exact, NIST Handbook 44, Appendix C). */
-const FOOT_M = 0.3048;
+import { FOOT_METRES as FOOT_M, US_GALLON_LITRES } from '../../domain/units.js';
 
 const minutes = (seconds: number) =>
   seconds >= 5940 ? `${(seconds / 3600).toFixed(1)} h` : `${Math.max(1, Math.round(seconds / 60))} min`;
