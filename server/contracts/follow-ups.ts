@@ -62,4 +62,8 @@ export interface FollowUpView {
   partOf: string | null;
   /** Its mails: sent, still being tried, and given up (not delivered). */
   mail: { sent: number; pending: number; failed: number };
+  /** For a violation: the discharge point of the result, where equipment can be looked at for a cause. */
+  pointCode: string | null;
+  /** Tank checks kept as its evidence. */
+  tankChecks: number;
 }

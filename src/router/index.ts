@@ -80,6 +80,13 @@ export const routes: RouteRecordRaw[] = [
         meta: { action: 'oil-log.read', title: 'Equipment' },
       },
       {
+        path: 'oil-log/equipment/:id/sheet',
+        name: 'application-sheet',
+        component: () => import('@/views/ApplicationSheetView.vue'),
+        props: true,
+        meta: { action: 'tools.use', title: 'Application sheet' },
+      },
+      {
         path: 'oil-log/equipment/:id/upkeep',
         name: 'upkeep-check',
         component: () => import('@/views/UpkeepCheckView.vue'),

@@ -33,6 +33,7 @@ const view = (
   mail: MailCounts = noMail,
   partOf: string | null = null,
   closedByName: string | null = null,
+  evidence: { pointCode: string | null; tankChecks: number } = { pointCode: null, tankChecks: 0 },
 ): FollowUpView => ({
   id: row.id,
   siteId: row.siteId,
@@ -51,6 +52,7 @@ const view = (
   mail,
   partOf,
   closedByName,
+  ...evidence,
 });
 
 interface FollowUpRow {
@@ -72,6 +74,8 @@ interface FollowUpRow {
   group_lead: string;
   owner_name: string | null;
   mail: MailCounts | null;
+  point_code: string | null;
+  tank_checks: number;
 }
 
 /** The follow-ups one violation opens share their source (the exceedance) and their state. */
@@ -86,6 +90,8 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
                 'pending', count(*) FILTER (WHERE m.status = 'pending'), 'failed', count(*) FILTER (WHERE m.status = 'failed'))
                 FROM mail_outbox m WHERE m.follow_up_id = follow_up.id) AS mail,
                 (SELECT u.name FROM app_user u WHERE u.id = follow_up.owner_id) AS owner_name,
+                follow_up.facts->>'pointCode' AS point_code,
+                (SELECT count(*)::int FROM tank_check tc WHERE tc.follow_up_id = follow_up.id) AS tank_checks,
                 first_value(id) OVER (PARTITION BY ${violationGroup} ORDER BY due_at, id) AS group_lead FROM follow_up`,
       countFrom: 'FROM follow_up',
       where: `site_id = ANY($1::uuid[]) AND ($2::text IS NULL OR status = $2)`,
@@ -118,6 +124,7 @@ export function pageFollowUps(db: Db, siteIds: string[], query: FollowUpQuery): 
         row.mail ?? noMail,
         row.source_entity === 'exceedance' && row.group_lead !== row.id ? row.group_lead : null,
         row.owner_name,
+        { pointCode: row.point_code, tankChecks: row.tank_checks },
       ),
   );
 }
