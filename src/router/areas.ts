@@ -2,6 +2,7 @@ import {
   mdiAccountKeyOutline,
   mdiBellAlertOutline,
   mdiCalendarRange,
+  mdiFileCertificateOutline,
   mdiFileDocumentMultipleOutline,
   mdiCogOutline,
   mdiFlaskOutline,
@@ -19,6 +20,8 @@ export interface Area {
   icon: string;
   routeName: string;
   action: Action;
+  /** Hidden from those who can do this (they have the fuller area). */
+  unless?: Action;
 }
 
 /**
@@ -36,5 +39,7 @@ export const areas: Area[] = [
   { title: 'Tank check', icon: mdiWaterOutline, routeName: 'tank-check', action: 'tools.use' },
   { title: 'Skimmer fit', icon: mdiScaleUnbalanced, routeName: 'skimmer-fit', action: 'tools.use' },
   { title: 'Set-up', icon: mdiCogOutline, routeName: 'setup', action: 'setup.manage' },
+  // The same page, read as a view by those who do not manage it (the auditor checks the limits there).
+  { title: 'Permit and limits', icon: mdiFileCertificateOutline, routeName: 'setup', action: 'sites.read', unless: 'setup.manage' },
   { title: 'People and access', icon: mdiAccountKeyOutline, routeName: 'setup-people', action: 'users.read' },
 ];

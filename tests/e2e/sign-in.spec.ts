@@ -5,7 +5,7 @@ import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 
 // What each role's navigation shows, from the permission table's areas.
 const expectedAreas: Record<string, string[]> = {
-  administrator: ['Overview', 'Trail', 'People and access'],
+  administrator: ['Overview', 'Trail', 'Permit and limits', 'People and access'],
   coordinator: [
     'Overview',
     'Lab',
@@ -19,8 +19,8 @@ const expectedAreas: Record<string, string[]> = {
     'Skimmer fit',
     'Set-up',
   ],
-  operator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Follow-ups', 'Tank check', 'Skimmer fit'],
-  auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Reports', 'Follow-ups', 'Trail'],
+  operator: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Follow-ups', 'Tank check', 'Skimmer fit', 'Permit and limits'],
+  auditor: ['Overview', 'Lab', 'Oil log', 'Shipments', 'Periods', 'Reports', 'Follow-ups', 'Trail', 'Permit and limits'],
 };
 
 describe('signing in with a browser', () => {
