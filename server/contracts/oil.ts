@@ -57,10 +57,20 @@ export const observations = ['free-oil', 'sheen', 'emulsified-oil', 'debris'] as
 export const OilLogFields = z.object({
   equipmentId: uuid,
   collectedOn: isoDate,
-  volume: z.number().finite().min(0, 'Cannot be negative').max(1_000_000, 'Not a plausible volume'),
+  volume: z
+    .number({ error: 'Enter the oil collected' })
+    .finite()
+    .min(0, 'Cannot be negative: enter the oil collected')
+    .max(1_000_000, 'Not a plausible volume for one day'),
   unit: z.enum(['gal', 'L']),
   hoursRun: z.number().finite().min(0).max(24, 'A day has 24 hours').nullable().default(null),
-  waterTemperatureC: z.number().finite().min(-5).max(100).nullable().default(null),
+  waterTemperatureC: z
+    .number()
+    .finite()
+    .min(-5, 'Water colder than -5 °C (23 °F) is not plausible')
+    .max(100, 'Water hotter than 100 °C (212 °F) is not plausible')
+    .nullable()
+    .default(null),
   observations: z.array(z.enum(observations)).max(4).default([]),
   note: z.string().trim().max(1000).default(''),
 });

@@ -1,4 +1,4 @@
-import { ref } from 'vue';
+import { nextTick, ref } from 'vue';
 import { ApiError } from '@/api/client';
 import { useNotificationsStore } from '@/stores/notifications';
 
@@ -23,6 +23,8 @@ export function useSubmit(options: { fields?: readonly string[] } = {}) {
       return true;
     } catch (error) {
       const fields = error instanceof ApiError ? Object.entries(error.fields) : [];
+      // The first field in error comes into view, so a long form on a phone shows what to fix.
+      if (fields.length > 0) void nextTick(() => document.querySelector('.v-input--error')?.scrollIntoView({ block: 'center' }));
       if (options.fields) {
         const shown = fields.filter(([field]) => options.fields!.includes(field.split('.')[0]!));
         errors.value = Object.fromEntries(shown.map(([field, message]) => [field.split('.')[0]!, message]));

@@ -9,7 +9,7 @@ export function mountWithApp<T extends Component>(component: T, options: Compone
   setActivePinia(pinia);
   return mount(component, {
     ...options,
-    global: { plugins: [vuetify, pinia], ...(options.global ?? {}) },
+    global: { ...(options.global ?? {}), plugins: [vuetify, pinia, ...(options.global?.plugins ?? [])] },
     attachTo: document.body,
   } as ComponentMountingOptions<T>);
 }

@@ -14,13 +14,13 @@ async function writeControls(page: Page): Promise<string[]> {
       return box.width > 0 && box.height > 0;
     };
     const found: string[] = [];
-    for (const el of document.querySelectorAll('main button, main a[role="button"], main .v-btn, [role="dialog"] .v-btn')) {
+    for (const el of Array.from(document.querySelectorAll('main button, main a[role="button"], main .v-btn, [role="dialog"] .v-btn'))) {
       const text = (el.textContent ?? '').trim().replace(/\s+/g, ' ');
       if (!visible(el) || (el as HTMLButtonElement).disabled || el.getAttribute('aria-disabled') === 'true') continue;
       if (writeVerb.test(text)) found.push(`button “${text}”`);
     }
-    for (const el of document.querySelectorAll(
-      'main form input, main form textarea, [role="dialog"] form input, [role="dialog"] form textarea',
+    for (const el of Array.from(
+      document.querySelectorAll('main form input, main form textarea, [role="dialog"] form input, [role="dialog"] form textarea'),
     )) {
       const input = el as HTMLInputElement;
       if (input.type === 'hidden' || !visible(input) || input.disabled || input.readOnly) continue;
