@@ -123,7 +123,13 @@ describe('periods, summaries and follow-ups', () => {
     expect(PeriodSummary.strict().safeParse(summary.body).error).toBeUndefined();
 
     // Compiling opens the 122.41(l)(6) reports once, however often it runs.
-    await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
+    const compiled = await request(t.app).post(`/api/periods/${periods.body.items[0].id}/compile`).set('cookie', coordinator).expect(200);
+    // The compiled figures count the follow-ups this compile has just opened.
+    const [{ open }] = await t.dataSource.query(`SELECT count(*)::int AS open FROM follow_up WHERE site_id = $1 AND status = 'open'`, [
+      compiled.body.siteId,
+    ]);
+    expect(open).toBeGreaterThan(0);
+    expect(compiled.body.openFollowUps).toBe(open);
     const count = async () =>
       (await t.dataSource.query(`SELECT count(*)::int AS n FROM follow_up WHERE kind IN ('report-within-24-hours', 'written-report')`))[0]
         .n;

@@ -3,6 +3,7 @@ import type { PeriodListItem, PeriodStatus, PeriodSummary } from '../../contract
 import type { GeneratorStatus, ManifestRule } from '../../domain/manifest-deadlines.js';
 import type { ReportingPeriod as PeriodDates } from '../../domain/reporting-periods.js';
 import { Site } from '../../kernel/sites/site.entity.js';
+import { FollowUp } from '../follow-ups/follow-up.entity.js';
 import { Permit } from '../permits/permit.entity.js';
 import { Shipment } from '../shipments/shipment.entity.js';
 import type { PeriodRecord } from './period-input.repository.js';
@@ -211,4 +212,9 @@ export async function periodsCovering(db: Db, siteId: string, days: string[]): P
     [siteId, days],
   );
   return rows.map(record);
+}
+
+/** The site's open follow-ups now: read again after a compile has opened new ones. */
+export async function openFollowUpCount(db: Db, siteId: string): Promise<number> {
+  return db.getRepository(FollowUp).count({ where: { siteId, status: 'open' } });
 }

@@ -27,6 +27,7 @@ import {
   findPermitCalendar,
   insertMissingPeriods,
   listPeriods,
+  openFollowUpCount,
   saveCompiledSummary,
   saveSubmissionDate,
   shipmentsAwaitingSignedCopy,
@@ -121,6 +122,8 @@ export async function compileWithin(manager: EntityManager, user: Actor, periodI
     }
   }
   await openSiteDeadlines(manager, period);
+  // The figures saved and shown are those after this compile: it may just have opened follow-ups.
+  summary.openFollowUps = await openFollowUpCount(manager, period.siteId);
   const status = await saveCompiledSummary(manager, periodId, summary);
   await recordTrail(manager, user, {
     action: 'compile',
