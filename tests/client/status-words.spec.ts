@@ -56,6 +56,21 @@ describe('status words and icons', () => {
     wrapper.unmount();
   });
 
+  it('opens the reason of a finding with a tap, on the page rather than in a hover tooltip', async () => {
+    const wrapper = mountWithApp(FlagChips, {
+      props: { flags: [{ code: 'holding-time', severity: 'error', message: 'Analysed late', source: 'EPA Method 1664 Rev. B §8.5' }] },
+    });
+    expect(wrapper.find('[data-test="flag-reason"]').exists()).toBe(false);
+    await wrapper.find('[data-flag="holding-time"]').trigger('click');
+    expect(wrapper.find('[data-test="flag-reason"]').text()).toBe('Analysed late (rule: EPA Method 1664 Rev. B §8.5)');
+    wrapper.unmount();
+    const detail = mountWithApp(FlagChips, {
+      props: { flags: [{ code: 'holding-time', severity: 'error', message: 'Analysed late', source: 'x' }], showAll: true },
+    });
+    expect(detail.find('[data-test="flag-reason"]').exists()).toBe(true);
+    detail.unmount();
+  });
+
   it('says "No findings" when the only flags are notes it hides, instead of leaving the cell blank', () => {
     const wrapper = mountWithApp(FlagChips, {
       props: {
