@@ -48,7 +48,8 @@ export const UpdateShipmentRequest = updateOf(ShipmentFields.omit({ siteId: true
   .refine(copyAfterShipment, { path: ['signedCopyReceivedOn'], message: 'Cannot come back before the shipment left' });
 export type CreateShipmentRequest = z.infer<typeof CreateShipmentRequest>;
 
-export const shipmentStatuses = ['awaiting-signed-copy', 'overdue', 'complete'] as const;
+/** `not-tracked`: papers other than a hazardous waste manifest, which 40 CFR 262.42's signed-copy deadlines do not cover. */
+export const shipmentStatuses = ['awaiting-signed-copy', 'overdue', 'complete', 'not-tracked'] as const;
 export const shipmentSortKeys = ['shippedOn', 'documentNumber', 'quantityLitres'] as const;
 export const ShipmentQuery = sortedPageQuery(shipmentSortKeys).extend({
   siteId: uuid.optional(),

@@ -161,6 +161,28 @@ describe('oil log, upkeep and shipments', () => {
       expect(overdue.body.items.some((s: { id: string }) => s.id === created.body.id)).toBe(true);
     });
 
+    it('gives a used-oil bill of lading no signed-copy deadline: 40 CFR 262.42 follows the hazardous waste manifest only', async () => {
+      const created = await request(t.app)
+        .post('/api/shipments')
+        .set('cookie', coordinator)
+        .send(shipment({ documentKind: 'used-oil-bill-of-lading', documentNumber: `UOB-TEST-${Date.now()}` }))
+        .expect(201);
+      expect(created.body).toMatchObject({ status: 'not-tracked', deadlines: [] });
+      const overdue = await request(t.app).get(`/api/shipments?siteId=${ids.north}&status=overdue`).set('cookie', coordinator).expect(200);
+      expect(overdue.body.items.some((s: { id: string }) => s.id === created.body.id)).toBe(false);
+    });
+
+    it('shows a demo that is recognisably invented: both kinds of papers, and identification numbers under no state code', async () => {
+      const rows = await t.dataSource.query(
+        `SELECT document_kind, count(*)::int AS n, bool_and(transporter_epa_id LIKE 'ZZ%' AND receiver_epa_id LIKE 'ZZ%') AS invented,
+                bool_and(document_kind <> 'hazardous-waste-manifest' OR document_number LIKE '%QZD') AS invented_suffix
+           FROM shipment WHERE transporter_name = 'Kestrel Fluid Haulers' GROUP BY document_kind`,
+      );
+      const kinds = Object.fromEntries(rows.map((row: { document_kind: string }) => [row.document_kind, row]));
+      expect(kinds['used-oil-bill-of-lading'].n).toBeGreaterThan(kinds['hazardous-waste-manifest'].n);
+      expect(rows.every((row: { invented: boolean; invented_suffix: boolean }) => row.invented && row.invented_suffix)).toBe(true);
+    });
+
     it('flags used oil above 1,000 ppm total halogens (40 CFR 279.10(b)(1)(ii))', async () => {
       const created = await request(t.app)
         .post('/api/shipments')

@@ -78,8 +78,9 @@ const failureNotes: Record<string, string> = {
 };
 
 const carriers = {
-  transporter: { name: 'Kestrel Fluid Haulers', epaId: 'ILR000417233' },
-  receiver: { name: 'Marrowby Oil Recovery', epaId: 'ILD000982114' },
+  // Invented identification numbers: 'ZZ' is no state's code, so they cannot be mistaken for real ones.
+  transporter: { name: 'Kestrel Fluid Haulers', epaId: 'ZZR000417233' },
+  receiver: { name: 'Marrowby Oil Recovery', epaId: 'ZZD000982114' },
 };
 
 export async function seedOil(
@@ -198,12 +199,18 @@ export async function seedOil(
         leadPpm: 18,
         flashPointF: 210,
       };
-      const document = `${String(100000000 + salt * 5000000 + shipmentNumber * 7919).slice(0, 9)}JJK`;
+      // Used oil for recycling travels on the hauler's used-oil bill of lading (40 CFR 279); the
+      // separator's sludge clean-outs, every fourth load, go on a hazardous waste manifest, whose
+      // signed copy 40 CFR 262.42 follows. The manifest suffix 'QZD' is invented, not a printer's.
+      const onManifest = neverReturned || shipmentNumber % 4 === 0;
+      const document = onManifest
+        ? `${String(100000000 + salt * 5000000 + shipmentNumber * 7919).slice(0, 9)}QZD`
+        : `UOB-${day.toFormat('yyyyMMdd')}-${site.key === 'north' ? 'N' : 'E'}${String(shipmentNumber).padStart(2, '0')}`;
       await manager.query(
         `INSERT INTO shipment (site_id, shipped_on, document_kind, document_number, transporter_name, transporter_epa_id, receiver_name, receiver_epa_id,
            waste_description, quantity, quantity_unit, quantity_litres, total_halogens_ppm, burned_as_fuel, arsenic_ppm, cadmium_ppm, chromium_ppm, lead_ppm,
            flash_point_f, signed_copy_received_on, flags, created_by)
-         VALUES ($1, $2, 'hazardous-waste-manifest', $3, $4, $5, $6, $7, 'Used oil from skimmers and separators, in 55-gal drums', $8, 'gal', $9,
+         VALUES ($1, $2, $19, $3, $4, $5, $6, $7, $20, $8, 'gal', $9,
            $10, true, $11, $12, $13, $14, $15, $16, $17, $18)`,
         [
           site.id,
@@ -224,6 +231,10 @@ export async function seedOil(
           returned,
           JSON.stringify(usedOilFlags(analysis)),
           operatorId,
+          onManifest ? 'hazardous-waste-manifest' : 'used-oil-bill-of-lading',
+          onManifest
+            ? 'Oily sludge and water from the separator clean-out, in 55-gal drums'
+            : 'Used oil for recycling, from skimmers and separators, in 55-gal drums',
         ],
       );
     }

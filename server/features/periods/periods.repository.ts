@@ -195,7 +195,8 @@ export async function shipmentsAwaitingSignedCopy(
 ): Promise<Array<{ id: string; documentNumber: string; shippedOn: string; generatorStatus: GeneratorStatus; manifestRule: ManifestRule }>> {
   const site = await db.getRepository(Site).findOneByOrFail({ id: siteId });
   const shipments = await db.getRepository(Shipment).find({
-    where: { siteId, signedCopyReceivedOn: IsNull() },
+    // Only a hazardous waste manifest has the 40 CFR 262.42 signed-copy deadlines.
+    where: { siteId, signedCopyReceivedOn: IsNull(), documentKind: 'hazardous-waste-manifest' },
     select: { id: true, documentNumber: true, shippedOn: true },
   });
   return shipments.map((shipment) => ({ ...shipment, generatorStatus: site.generatorStatus, manifestRule: site.manifestRule }));

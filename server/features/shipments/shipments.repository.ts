@@ -8,6 +8,8 @@ import { Shipment } from './shipment.entity.js';
 
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
+/** The only papers whose signed copy 40 CFR 262.42 follows: the hazardous waste manifest. */
+export const SIGNED_COPY_DOCUMENT = 'hazardous-waste-manifest';
 
 /** The first 262.42 step of each generator status and rule, from the domain rule, for SQL filters. */
 const firstSteps = (['large', 'small'] as const).flatMap((status) =>
@@ -20,7 +22,9 @@ const firstStepSql = (
   WHERE f.status = st.generator_status AND f.rule = st.manifest_rule)`;
 const firstStepParams = () => [firstSteps.map((f) => f.status), firstSteps.map((f) => f.rule), firstSteps.map((f) => f.days)];
 
+// 40 CFR 262.42 is about the manifest's signed copy: other papers have no such deadline.
 const statusSql = (at: number) => `CASE WHEN s.signed_copy_received_on IS NOT NULL THEN 'complete'
+  WHEN s.document_kind <> '${SIGNED_COPY_DOCUMENT}' THEN 'not-tracked'
   WHEN ${firstStepSql(at)} IS NOT NULL AND (now() AT TIME ZONE st.time_zone)::date > s.shipped_on + ${firstStepSql(at)} THEN 'overdue'
   ELSE 'awaiting-signed-copy' END`;
 
@@ -64,12 +68,13 @@ interface ShipmentRow {
 }
 
 function view(row: ShipmentRow): ShipmentView {
-  const deadlines = row.signed_copy_received_on
-    ? []
-    : manifestDeadlines(row.generator_status, row.manifest_rule, row.shipped_on).map((d) => ({
-        ...d,
-        daysLeft: daysLeft(d.dueOn, row.today),
-      }));
+  const deadlines =
+    row.signed_copy_received_on || row.document_kind !== SIGNED_COPY_DOCUMENT
+      ? []
+      : manifestDeadlines(row.generator_status, row.manifest_rule, row.shipped_on).map((d) => ({
+          ...d,
+          daysLeft: daysLeft(d.dueOn, row.today),
+        }));
   return {
     id: row.id,
     siteId: row.site_id,
