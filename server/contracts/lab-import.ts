@@ -39,6 +39,8 @@ export interface ImportReport {
   samples: number;
   results: number;
   errors: ImportRowError[];
+  /** After a commit: the imported certificates whose results raised findings, to open one by one. */
+  withFindings?: Array<{ id: string; reportNumber: string }>;
 }
 
 export const ImportTemplateQuery = z.object({ siteId: uuid, format: z.enum(['xlsx', 'csv']).default('xlsx') });

@@ -17,6 +17,9 @@ const actions: Record<string, string> = {
   'attach-file': 'Attached a file',
   close: 'Closed',
   send: 'Sent',
+  revise: 'Saved a new version',
+  attach: 'Attached as evidence',
+  upload: 'Uploaded',
   'sign-in': 'Signed in',
   'sign-out': 'Signed out',
   'insert-outside-decant': 'Added outside Decant',
@@ -46,6 +49,11 @@ const kinds: Record<string, string> = {
   'reporting-period': 'Reporting period',
   'follow-up': 'Follow-up',
   'authority-notice': 'Notice to the authority',
+  'application-sheet': 'Application sheet',
+  'tank-check': 'Tank check',
+  'upkeep-photo': 'Upkeep photo',
+  'oil-opening-balance': 'Oil opening balance',
+  preferences: 'Own settings',
   permit_limit: 'Limit',
   permit_settings: 'Permit settings',
 };
@@ -67,7 +75,19 @@ export function recordName(before: unknown, after: unknown, entityId: string): s
     keys.map((key) => fields[key]).find((v) => typeof v === 'string' && v.length > 0) as string | undefined;
   if (typeof fields.startsOn === 'string' && typeof fields.endsOn === 'string') return `${fields.startsOn} – ${fields.endsOn}`;
   return (
-    pick('reportNumber', 'report_number', 'documentNumber', 'document_number', 'number', 'code', 'title', 'name', 'email', 'fileName') ??
+    pick(
+      'reportNumber',
+      'report_number',
+      'documentNumber',
+      'document_number',
+      'number',
+      'code',
+      'title',
+      'name',
+      'equipment',
+      'email',
+      'fileName',
+    ) ??
     (typeof fields.collectedOn === 'string' ? `collected ${fields.collectedOn}` : undefined) ??
     (typeof fields.day === 'string' ? `day ${fields.day}` : undefined) ??
     entityId

@@ -11,7 +11,9 @@ export function useVolume() {
     return unit.value === 'gal' ? litres / LITRES_PER_US_GALLON : litres;
   }
   function format(litres: number, digits = 1): string {
-    return `${fromLitres(litres).toLocaleString(undefined, { maximumFractionDigits: digits, minimumFractionDigits: digits })} ${unit.value}`;
+    return `${fromLitres(litres).toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: digits })} ${unit.value}`;
   }
-  return { unit, fromLitres, format };
+  /** A volume kept in US gallons (a storage capacity), shown in the user's units. */
+  const formatGallons = (gallons: number, digits = 0) => format(gallons * LITRES_PER_US_GALLON, digits);
+  return { unit, fromLitres, format, formatGallons };
 }

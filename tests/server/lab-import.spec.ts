@@ -153,12 +153,26 @@ describe('lab results import', () => {
     const dry = await post(file, 'results.csv', false).expect(200);
     expect(dry.body.errors).toEqual([
       { row: 2, column: 'report_number', message: 'This lab already has a certificate with this report number' },
-      { row: 3, column: 'discharge_point_code', message: 'No discharge point with this code at the site' },
+      { row: 3, column: 'discharge_point_code', message: 'No discharge point “OF-999” at the site (see the Codes sheet)' },
     ]);
   });
 
+  it('says after a commit which certificates raised findings: one without an analysis time cannot have its holding time checked (Method 1664 Rev. B §8.5)', async () => {
+    const stamp = Date.now();
+    const file = Buffer.from([header, csvRow(`FND-A-${stamp}`), csvRow(`FND-B-${stamp}`, { analysed_at: '' })].join('\n'));
+    const done = await post(file, 'results.csv', true).expect(201);
+    expect(done.body.withFindings.map((c: { reportNumber: string }) => c.reportNumber)).toContain(`FND-B-${stamp}`);
+    expect(done.body.withFindings.map((c: { reportNumber: string }) => c.reportNumber)).not.toContain(`FND-A-${stamp}`);
+  });
+
+  it('names every problem of a row at once: a bad date does not hide an unknown parameter code', async () => {
+    const file = Buffer.from([header, csvRow('IMP-F', { received_on: '2026-13-40', parameter_code: 'oil-and-stuff' })].join('\n'));
+    const dry = await post(file, 'results.csv', false).expect(200);
+    expect(dry.body.errors.map((error: { column: string }) => error.column).sort()).toEqual(['parameter_code', 'received_on']);
+  });
+
   for (const format of ['xlsx', 'csv'] as const) {
-    it(`downloads the ${format} template and imports it back as it is`, async () => {
+    it(`downloads the ${format} template, whose example row the check refuses, and imports it once the row is the site's own`, async () => {
       const template = await request(t.app)
         .get(`/api/lab-certificates/import/template?siteId=${ids.north}&format=${format}`)
         .set('cookie', coordinator)
@@ -166,13 +180,28 @@ describe('lab results import', () => {
         .parse(binary as never)
         .expect(200);
       expect(template.headers['content-disposition']).toContain(`.${format}`);
+      const before = await counts();
+      const example = await post(template.body, `template.${format}`, true).expect(400);
+      expect(JSON.stringify(example.body)).toContain("This is the template's example row: delete it before importing");
+      expect(await counts()).toEqual(before);
+
+      let own: Buffer;
       if (format === 'xlsx') {
         const workbook = new ExcelJS.Workbook();
         await workbook.xlsx.load(template.body);
-        expect(String(workbook.worksheets[0]!.getRow(1).getCell(6).value)).toContain('collected_at [YYYY-MM-DD HH:mm');
+        const results = workbook.worksheets[0]!;
+        expect(String(results.getRow(1).getCell(6).value)).toContain('collected_at [YYYY-MM-DD HH:mm');
+        // The Codes sheet lists the site's points and the parameters an import can name.
+        const codes = workbook.getWorksheet('Codes')!;
+        const column = (n: number) => codes.getColumn(n).values.map(String);
+        expect(column(1)).toContain('OF-001');
+        expect(column(4)).toEqual(expect.arrayContaining(['oil-grease-hem', 'ph']));
+        results.getRow(2).getCell(3).value = `TPL-${Date.now()}`;
+        own = Buffer.from(await workbook.xlsx.writeBuffer());
+      } else {
+        own = Buffer.from(String(template.body).replace('EXAMPLE-DELETE-THIS-ROW', `TPL-${Date.now()}`));
       }
-      const before = await counts();
-      const done = await post(template.body, `template.${format}`, true).expect(201);
+      const done = await post(own, `template.${format}`, true).expect(201);
       expect(done.body).toMatchObject({ committed: true, rows: 1, results: 1 });
       expect(await counts()).toEqual([before[0]! + 1, before[1]! + 1, before[2]! + 1]);
     });

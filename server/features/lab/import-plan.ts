@@ -6,6 +6,9 @@ import { unitNames } from '../../contracts/unit-names.js';
 import type { ImportRow } from '../../kernel/spreadsheets/spreadsheet-rows.js';
 import { reportKey } from './lab.repository.js';
 
+/** The template's example row carries this report number, so it can never be imported as a real certificate. */
+export const EXAMPLE_REPORT_PREFIX = 'EXAMPLE-DELETE-THIS-ROW';
+
 const blankToNull = (value: string | undefined) => (value === undefined || value.trim() === '' ? null : value.trim());
 const localTime = z
   .string()
@@ -83,15 +86,22 @@ export async function planImport(rows: AsyncIterable<ImportRow>, lookups: Import
   for await (const { row, cells } of rows) {
     count += 1;
     const parsed = RowSchema.safeParse(cells);
+    // The codes are checked whatever else is wrong with the row, so one dry run names every problem.
+    const pointCode = String(cells.discharge_point_code ?? '').trim();
+    const parameterCode = String(cells.parameter_code ?? '').trim();
+    const pointId = lookups.pointIds.get(pointCode);
+    const parameterId = lookups.parameterIds.get(parameterCode);
+    if (pointCode && !pointId) fail(row, 'discharge_point_code', `No discharge point “${pointCode}” at the site (see the Codes sheet)`);
+    if (parameterCode && !parameterId) fail(row, 'parameter_code', `No parameter “${parameterCode}” (see the Codes sheet)`);
+    if (String(cells.report_number ?? '').startsWith(EXAMPLE_REPORT_PREFIX)) {
+      fail(row, 'report_number', "This is the template's example row: delete it before importing");
+    }
     if (!parsed.success) {
       for (const issue of parsed.error.issues) fail(row, (issue.path[0] as ImportColumn) ?? null, issue.message);
       continue;
     }
     const data = parsed.data;
-    const pointId = lookups.pointIds.get(data.discharge_point_code);
-    const parameterId = lookups.parameterIds.get(data.parameter_code);
-    if (!pointId) fail(row, 'discharge_point_code', 'No discharge point with this code at the site');
-    if (!parameterId) fail(row, 'parameter_code', 'No parameter with this code');
+    if (data.report_number.startsWith(EXAMPLE_REPORT_PREFIX)) continue;
     if (lookups.existingReports.has(reportKey(data.lab_name, data.report_number))) {
       fail(row, 'report_number', 'This lab already has a certificate with this report number');
     }

@@ -1,8 +1,19 @@
 import ExcelJS from 'exceljs';
 import { importColumns } from '../../contracts/lab-import.js';
+import { EXAMPLE_REPORT_PREFIX } from './import-plan.js';
 
-/** The import template: headers with their units and formats, and one example row that imports as it is. */
-export async function importTemplate(format: 'xlsx' | 'csv', example: { pointCode: string }): Promise<Buffer> {
+export interface TemplateCodes {
+  points: Array<{ code: string; name: string }>;
+  parameters: Array<{ code: string; name: string; defaultUnit: string }>;
+}
+
+/**
+ * The import template: headers with their units and formats, one example row the check refuses
+ * (so it is never imported as a real certificate), and in the workbook a Codes sheet with the
+ * site's discharge point and parameter codes.
+ */
+export async function importTemplate(format: 'xlsx' | 'csv', codes: TemplateCodes): Promise<Buffer> {
+  const example = { pointCode: codes.points[0]?.code ?? 'OF-001' };
   const workbook = new ExcelJS.Workbook();
   workbook.creator = 'Decant';
   const sheet = workbook.addWorksheet('Results');
@@ -12,7 +23,7 @@ export async function importTemplate(format: 'xlsx' | 'csv', example: { pointCod
   sheet.addRow([
     'Example Laboratory',
     'ACC-0000',
-    `EXAMPLE-${now.getTime()}`,
+    EXAMPLE_REPORT_PREFIX,
     day(5),
     example.pointCode,
     `${day(7)} 09:30`,
@@ -34,6 +45,18 @@ export async function importTemplate(format: 'xlsx' | 'csv', example: { pointCod
   sheet.columns.forEach((column) => (column.width = 24));
   // Keep every cell as text, so Excel does not turn dates and codes into something else.
   sheet.eachRow((row) => row.eachCell((cell) => (cell.numFmt = '@')));
+  if (format === 'xlsx') {
+    const list = workbook.addWorksheet('Codes');
+    list.addRow(['discharge_point_code', 'discharge point', '', 'parameter_code', 'parameter', 'usual unit']);
+    list.getRow(1).font = { bold: true };
+    const rows = Math.max(codes.points.length, codes.parameters.length);
+    for (let i = 0; i < rows; i += 1) {
+      const point = codes.points[i];
+      const parameter = codes.parameters[i];
+      list.addRow([point?.code ?? '', point?.name ?? '', '', parameter?.code ?? '', parameter?.name ?? '', parameter?.defaultUnit ?? '']);
+    }
+    list.columns.forEach((column) => (column.width = 26));
+  }
   const buffer = format === 'xlsx' ? await workbook.xlsx.writeBuffer() : await workbook.csv.writeBuffer();
   return Buffer.from(buffer as ArrayBuffer);
 }

@@ -11,7 +11,7 @@ import { planImport } from './import-plan.js';
 import { importTemplate } from './import-template.js';
 import type { LabCertificatesService } from './lab-certificates.service.js';
 import { limitsInForce } from './lab-flags.service.js';
-import { firstActivePointCode, importLookups } from './lab.repository.js';
+import { certificatesWithFindings, importLookups, templateCodes } from './lab.repository.js';
 
 /** Spreadsheet import of lab results: template, dry run, then all certificates or none. */
 export class LabImportService {
@@ -22,9 +22,8 @@ export class LabImportService {
 
   async template(user: CurrentUser, { siteId, format }: ImportTemplateQuery): Promise<Download> {
     assertSiteAllowed(user, siteId);
-    const pointCode = (await firstActivePointCode(this.dataSource, siteId)) ?? 'OF-001';
     return {
-      bytes: await importTemplate(format, { pointCode }),
+      bytes: await importTemplate(format, await templateCodes(this.dataSource, siteId)),
       mediaType: format === 'xlsx' ? xlsxType : 'text/csv; charset=utf-8',
       fileName: `decant-lab-results-template.${format}`,
     };
@@ -87,6 +86,7 @@ export class LabImportService {
     // All certificates or none: one transaction, one trail entry per certificate.
     const resultCount = report.results;
     let written = 0;
+    const ids: string[] = [];
     await this.dataSource.transaction(async (manager) => {
       await run.limitStatements(manager);
       const limits = limitsInForce(manager);
@@ -94,6 +94,7 @@ export class LabImportService {
         await run.progress('writing', written, resultCount);
         written += request.samples.reduce((m, s) => m + s.results.length, 0);
         const id = await this.certificates.insertCertificate(manager, user, request, null, limits);
+        ids.push(id);
         await recordTrail(manager, user, {
           action: 'import',
           entity: 'lab-certificate',
@@ -103,6 +104,6 @@ export class LabImportService {
         });
       }
     });
-    return { ...report, committed: true };
+    return { ...report, committed: true, withFindings: await certificatesWithFindings(this.dataSource, ids) };
   }
 }

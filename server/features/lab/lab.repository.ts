@@ -336,12 +336,32 @@ export async function importLookups(db: Db, siteId: string) {
 }
 
 /** The code of a site's first active discharge point, to fill the import template's example row. */
-export async function firstActivePointCode(db: Db, siteId: string): Promise<string | undefined> {
-  const [point]: Array<{ code: string }> = await db.query(
-    'SELECT code FROM discharge_point WHERE site_id = $1 AND active ORDER BY code LIMIT 1',
+/** Of these certificates, those with a result that raised a finding (a warning or an error; notes do not count). */
+export async function certificatesWithFindings(db: Db, ids: string[]): Promise<Array<{ id: string; reportNumber: string }>> {
+  if (ids.length === 0) return [];
+  // Raw SQL: an existence test over the certificates' results in one read.
+  const rows: Array<{ id: string; report_number: string }> = await db.query(
+    `SELECT c.id, c.report_number FROM lab_certificate c
+      WHERE c.id = ANY($1::uuid[]) AND EXISTS (SELECT 1 FROM lab_sample s JOIN lab_result r ON r.sample_id = s.id
+                                               WHERE s.certificate_id = c.id
+                                                 AND jsonb_path_exists(r.flags, '$[*] ? (@.severity != "info")'))
+      ORDER BY c.report_number`,
+    [ids],
+  );
+  return rows.map((row) => ({ id: row.id, reportNumber: row.report_number }));
+}
+
+/** The codes an import names: the site's active discharge points and the parameters it can use. */
+export async function templateCodes(db: Db, siteId: string) {
+  const points: Array<{ code: string; name: string }> = await db.query(
+    'SELECT code, name FROM discharge_point WHERE site_id = $1 AND active ORDER BY code',
     [siteId],
   );
-  return point?.code;
+  const parameters: Array<{ code: string; name: string; default_unit: string }> = await db.query(
+    'SELECT code, name, default_unit FROM parameter WHERE site_id IS NULL OR site_id = $1 ORDER BY code',
+    [siteId],
+  );
+  return { points, parameters: parameters.map((p) => ({ code: p.code, name: p.name, defaultUnit: p.default_unit })) };
 }
 
 /** The site a certificate is written for, with the zone its local times are read in. */
