@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoPassword } from '../../server/db/seed/demo-scenario.js';
+import { tinyPdf } from '../fixtures/lab.js';
 import { openBrowser, screenshot, signInAs } from '../helpers/browser.js';
 import { startLiveStack, type LiveStack } from '../helpers/live-stack.js';
 
@@ -34,6 +35,34 @@ describe('the oil log on a phone, and shipments', () => {
     // Nothing wider than the phone: a gloved thumb never scrolls sideways.
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     await screenshot(page, 'phone-oil-log-saved');
+  });
+
+  it('lets the operator record a shipment with its scan in one dialog on the phone', async () => {
+    const { page } = phone;
+    await page.goto(`${stack.appUrl}/shipments`);
+    await page.click('[data-test="add-shipment"]');
+    const dialog = page.getByRole('dialog');
+    const number = `${100000000 + Math.floor(Math.random() * 800000000)}QZD`;
+    await dialog.getByLabel('Document number').fill(number);
+    await dialog.getByLabel('Transporter', { exact: true }).fill('Kestrel Fluid Haulers');
+    await dialog.getByLabel('Transporter EPA ID').fill('ZZR000417233');
+    await dialog.getByLabel('Receiving facility').fill('Marrowby Oil Recovery');
+    await dialog.getByLabel('Facility EPA ID').fill('ZZD000982114');
+    await dialog.getByLabel('Quantity', { exact: true }).fill('110');
+    await dialog.locator('[data-test="new-shipment-scan"] input[type="file"]').setInputFiles({
+      name: 'manifest.pdf',
+      mimeType: 'application/pdf',
+      buffer: tinyPdf,
+    });
+    await screenshot(page, 'phone-shipment-with-scan');
+    await page.click('[data-test="save-shipment"]');
+    await page.getByText('Shipment saved with its scan').first().waitFor();
+    const [saved] = await stack.dataSource.query(
+      `SELECT count(sf.file_id)::int AS scans FROM shipment s LEFT JOIN shipment_file sf ON sf.shipment_id = s.id WHERE s.document_number = $1 GROUP BY s.id`,
+      [number],
+    );
+    expect(saved.scans).toBe(1);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
   });
 
   it('shows the coordinator the overdue exception report of the shipment whose signed copy never came back', async () => {
