@@ -66,4 +66,25 @@ export interface FollowUpView {
   pointCode: string | null;
   /** Tank checks kept as its evidence. */
   tankChecks: number;
+  /** Time left to its deadline, in words, as of the answer. */
+  countdown: Countdown;
+}
+
+export interface Countdown {
+  /** "in 5 hours", "in 3 days", "21 days overdue": the same words on every screen. */
+  text: string;
+  overdue: boolean;
+  /** Due within 48 hours, or overdue. */
+  soon: boolean;
+}
+
+/**
+ * The time left to a deadline, in words: hours below 48, days above. Computed by the server when
+ * it answers, so every screen shows the same words for the same deadline.
+ */
+export function countdown(dueAt: Date, now: Date): Countdown {
+  const hours = (dueAt.getTime() - now.getTime()) / 3_600_000;
+  const abs = Math.abs(hours);
+  const span = abs >= 48 ? `${Math.round(abs / 24)} days` : `${Math.round(abs)} ${Math.round(abs) === 1 ? 'hour' : 'hours'}`;
+  return hours < 0 ? { text: `${span} overdue`, overdue: true, soon: true } : { text: `in ${span}`, overdue: false, soon: hours < 48 };
 }

@@ -1,5 +1,5 @@
 import { In, type DataSource, type EntityManager } from 'typeorm';
-import type { FollowUpQuery, FollowUpView } from '../../contracts/follow-ups.js';
+import { countdown, type FollowUpQuery, type FollowUpView } from '../../contracts/follow-ups.js';
 import type { Page } from '../../contracts/paging.js';
 import { queryPage } from '../../db/page.js';
 import { FollowUp } from './follow-up.entity.js';
@@ -53,6 +53,7 @@ const view = (
   partOf,
   closedByName,
   ...evidence,
+  countdown: countdown(row.dueAt, new Date()),
 });
 
 interface FollowUpRow {
