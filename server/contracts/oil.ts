@@ -53,6 +53,13 @@ export interface EquipmentView extends z.infer<typeof EquipmentFields> {
 }
 
 export const observations = ['free-oil', 'sheen', 'emulsified-oil', 'debris'] as const;
+/** What the operator saw, in words. */
+export const observationWords: Record<(typeof observations)[number], string> = {
+  'free-oil': 'Free oil',
+  sheen: 'Sheen',
+  'emulsified-oil': 'Emulsified oil',
+  debris: 'Debris',
+};
 
 export const OilLogFields = z.object({
   equipmentId: uuid,
