@@ -74,6 +74,25 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
         click: { button: '[data-test="verify-chain"]', shows: '[data-test="chain-result"]' },
       },
       { name: 'people', path: '/setup/people', as: 'admin@decant.test' },
+      {
+        name: 'add-site',
+        path: '/setup',
+        as: coordinator,
+        click: { button: '[data-test="add-site"]', shows: '[data-test="save-new-site"]' },
+      },
+      { name: 'permit-and-limits-auditor', path: '/setup', as: 'auditor@decant.test' },
+      {
+        name: 'shipment-auditor',
+        path: '/shipments',
+        as: 'auditor@decant.test',
+        click: { button: 'main tbody tr', shows: '[data-test="shipment-facts"]' },
+      },
+      {
+        name: 'lab-import-codes',
+        path: '/lab/import',
+        as: coordinator,
+        click: { button: '[data-test="import-codes"] button', shows: 'code' },
+      },
     ];
   });
   afterAll(async () => {
