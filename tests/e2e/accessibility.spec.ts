@@ -91,7 +91,7 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
         name: 'lab-import-codes',
         path: '/lab/import',
         as: coordinator,
-        click: { button: '[data-test="import-codes"] button', shows: 'code' },
+        click: { button: '[data-test="import-codes"] button', shows: '[data-test="import-codes"] code >> nth=0' },
       },
     ];
   });
