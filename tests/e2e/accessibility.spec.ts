@@ -80,6 +80,24 @@ describe('accessibility of every screen (axe-core, WCAG 2.1 AA: no serious or cr
         as: coordinator,
         click: { button: '[data-test="add-site"]', shows: '[data-test="save-new-site"]' },
       },
+      {
+        name: 'equipment-form',
+        path: '/oil-log/equipment',
+        as: coordinator,
+        click: { button: '[data-test="add-equipment"]', shows: '[role="dialog"] .v-card-title' },
+      },
+      {
+        name: 'shipment-form',
+        path: '/shipments',
+        as: 'operator@decant.test',
+        click: { button: '[data-test="add-shipment"]', shows: '[data-test="new-shipment-scan"]' },
+      },
+      {
+        name: 'opening-balance',
+        path: '/overview',
+        as: coordinator,
+        click: { button: '[data-test="set-opening-balance"]', shows: '[role="dialog"] .v-card-title' },
+      },
       { name: 'permit-and-limits-auditor', path: '/setup', as: 'auditor@decant.test' },
       {
         name: 'shipment-auditor',

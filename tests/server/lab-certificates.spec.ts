@@ -178,6 +178,9 @@ describe('lab certificates', () => {
           })
           .expect(status);
         expect(response.body.error.fields).toHaveProperty('file');
+        // In words a person understands, never a media type.
+        expect(response.body.error.fields.file).not.toMatch(/application\//);
+        if (status === 415) expect(response.body.error.fields.file).toBe('This file is not a PDF: choose a PDF');
         expect(await counts()).toEqual(before);
       });
     }

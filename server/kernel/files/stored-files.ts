@@ -26,6 +26,21 @@ function checkFileName(name: string): void {
   }
 }
 
+/** What a person calls each kind of file we accept: never a media type on screen. */
+const fileWords: Record<string, string> = {
+  'application/pdf': 'a PDF',
+  'image/jpeg': 'a JPEG photo',
+  'image/png': 'a PNG image',
+  'image/webp': 'a WebP image',
+  'image/heic': 'a HEIC photo',
+  'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet': 'an Excel workbook (XLSX)',
+  'text/csv': 'a CSV file',
+};
+const inWords = (allowed: string[]) => {
+  const words = [...new Set(allowed.map((type) => fileWords[type] ?? type))];
+  return words.length > 1 ? `${words.slice(0, -1).join(', ')} or ${words.at(-1)}` : words[0]!;
+};
+
 /** Checks an upload by its content (magic bytes), never by its name or the browser's type. */
 export async function checkUpload(upload: Upload | undefined, allowed: string[]): Promise<{ mediaType: string }> {
   if (!upload) throw invalid({ file: 'Attach a file' });
@@ -33,7 +48,9 @@ export async function checkUpload(upload: Upload | undefined, allowed: string[])
   checkFileName(upload.originalname);
   const detected = await fileTypeFromBuffer(upload.buffer);
   if (!detected || !allowed.includes(detected.mime)) {
-    throw new AppError(415, 'unsupported_file', `The file is not ${allowed.join(' or ')}`, { file: `Expected ${allowed.join(' or ')}` });
+    throw new AppError(415, 'unsupported_file', `This file is not ${inWords(allowed)}`, {
+      file: `This file is not ${inWords(allowed)}: choose ${inWords(allowed)}`,
+    });
   }
   return { mediaType: detected.mime };
 }

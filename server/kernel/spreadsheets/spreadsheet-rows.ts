@@ -131,7 +131,9 @@ export async function spreadsheetRows<K extends string>(
   }
   const looksLikeText = !type && !file.buffer.subarray(0, 4096).includes(0);
   if (looksLikeText && /\.csv$/i.test(file.originalname)) return capped(csvRows<K>(file.buffer, columns));
-  throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', { file: 'Expected XLSX or CSV' });
+  throw new AppError(415, 'unsupported_file', 'Import an XLSX or CSV file', {
+    file: 'This file is neither an Excel workbook (XLSX) nor a CSV file',
+  });
 }
 
 /** The 400 answer of a commit refused for its row errors, carrying the whole report. */
