@@ -7,6 +7,9 @@ import { DateTime } from 'luxon';
  * own dates) moved the large quantity generator's steps from 35 / 45 days to 45 / 60 days.
  * Very small quantity generators have no such duty.
  */
+/** The only papers whose signed copy 40 CFR 262.42 follows: the hazardous waste manifest. */
+export const SIGNED_COPY_DOCUMENT = 'hazardous-waste-manifest';
+
 export type GeneratorStatus = 'large' | 'small' | 'very-small';
 export type ManifestRule = 'current' | 'before-2025';
 

@@ -1,12 +1,13 @@
 import type { ApplicationSheetContent } from '../contracts/application-sheet.js';
+import type { equipmentKinds } from '../contracts/oil.js';
 import type { SheetInSi } from './application-sheet.js';
 import { recommendedRating } from './oil-collection.js';
+import { FOOT_METRES } from './units.js';
 
 // Common practice of the trade, no published source: how the kind of skimmer meets the tank it
 // serves. Each rule answers with one short reason. The equipment maker's guidance governs.
 
-export type EquipmentKind =
-  'belt-skimmer' | 'drum-skimmer' | 'disc-skimmer' | 'tube-skimmer' | 'mop-skimmer' | 'oil-water-separator' | 'sump';
+export type EquipmentKind = (typeof equipmentKinds)[number];
 
 export interface FitNote {
   topic: 'reach' | 'level' | 'depth' | 'headroom' | 'materials' | 'emulsion' | 'coolant' | 'turbulence' | 'solids' | 'placement' | 'power';
@@ -36,8 +37,8 @@ export const BELT_HEADROOM_M = 0.3;
 /** Polymer media soften above about this temperature; ask the maker. Common practice, no published source. */
 export const POLYMER_MEDIA_MAX_C = 60;
 
-const m = (metres: number, us: boolean) => (us ? `${(metres / 0.3048).toFixed(1)} ft` : `${metres.toFixed(2)} m`);
-const area = (m2: number, us: boolean) => (us ? `${(m2 / 0.3048 ** 2).toFixed(0)} ft²` : `${m2.toFixed(1)} m²`);
+const m = (metres: number, us: boolean) => (us ? `${(metres / FOOT_METRES).toFixed(1)} ft` : `${metres.toFixed(2)} m`);
+const area = (m2: number, us: boolean) => (us ? `${(m2 / FOOT_METRES ** 2).toFixed(0)} ft²` : `${m2.toFixed(1)} m²`);
 
 /** How the kind of skimmer relates to the tank's surface and depth: the area to be skimmed matters, not only the volume of oil. */
 export function skimmerReach(kind: EquipmentKind, si: SheetInSi, us: boolean): FitNote {

@@ -1,6 +1,6 @@
 import { IsNull, type DataSource, type EntityManager } from 'typeorm';
 import type { PeriodListItem, PeriodStatus, PeriodSummary } from '../../contracts/periods.js';
-import type { GeneratorStatus, ManifestRule } from '../../domain/manifest-deadlines.js';
+import { SIGNED_COPY_DOCUMENT, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
 import type { ReportingPeriod as PeriodDates } from '../../domain/reporting-periods.js';
 import { Site } from '../../kernel/sites/site.entity.js';
 import { FollowUp } from '../follow-ups/follow-up.entity.js';
@@ -195,8 +195,7 @@ export async function shipmentsAwaitingSignedCopy(
 ): Promise<Array<{ id: string; documentNumber: string; shippedOn: string; generatorStatus: GeneratorStatus; manifestRule: ManifestRule }>> {
   const site = await db.getRepository(Site).findOneByOrFail({ id: siteId });
   const shipments = await db.getRepository(Shipment).find({
-    // Only a hazardous waste manifest has the 40 CFR 262.42 signed-copy deadlines.
-    where: { siteId, signedCopyReceivedOn: IsNull(), documentKind: 'hazardous-waste-manifest' },
+    where: { siteId, signedCopyReceivedOn: IsNull(), documentKind: SIGNED_COPY_DOCUMENT },
     select: { id: true, documentNumber: true, shippedOn: true },
   });
   return shipments.map((shipment) => ({ ...shipment, generatorStatus: site.generatorStatus, manifestRule: site.manifestRule }));

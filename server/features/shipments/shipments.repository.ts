@@ -1,15 +1,19 @@
 import type { DataSource, DeepPartial, EntityManager, QueryDeepPartialEntity } from 'typeorm';
 import type { Page } from '../../contracts/paging.js';
 import type { shipmentSortKeys, ShipmentView } from '../../contracts/shipments.js';
-import { daysLeft, manifestDeadlines, type GeneratorStatus, type ManifestRule } from '../../domain/manifest-deadlines.js';
+import {
+  daysLeft,
+  manifestDeadlines,
+  SIGNED_COPY_DOCUMENT,
+  type GeneratorStatus,
+  type ManifestRule,
+} from '../../domain/manifest-deadlines.js';
 import { queryPage } from '../../db/page.js';
 import { ShipmentFile } from './shipment-file.entity.js';
 import { Shipment } from './shipment.entity.js';
 
 type Db = DataSource | EntityManager;
 const n = (value: string | null) => (value === null ? null : Number(value));
-/** The only papers whose signed copy 40 CFR 262.42 follows: the hazardous waste manifest. */
-export const SIGNED_COPY_DOCUMENT = 'hazardous-waste-manifest';
 
 /** The first 262.42 step of each generator status and rule, from the domain rule, for SQL filters. */
 const firstSteps = (['large', 'small'] as const).flatMap((status) =>

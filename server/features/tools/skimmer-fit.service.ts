@@ -32,11 +32,11 @@ export async function skimmerFit(db: DataSource, user: CurrentUser, siteId: stri
     const fromSheet = si ? sheetSizing(si) : null;
     const sheetNeededLph = fromSheet?.neededLph ?? null;
     const sizedFrom =
-      item.peakLph === null && sheetNeededLph === null
-        ? null
-        : (sheetNeededLph ?? -1) > (item.peakLph ?? -1)
-          ? ('sheet' as const)
-          : ('oil-log' as const);
+      sheetNeededLph !== null && (item.peakLph === null || sheetNeededLph > item.peakLph)
+        ? ('sheet' as const)
+        : item.peakLph !== null
+          ? ('oil-log' as const)
+          : null;
     const neededLph = sizedFrom === 'sheet' ? sheetNeededLph : item.peakLph;
     return {
       equipmentId: item.id,

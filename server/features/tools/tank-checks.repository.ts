@@ -46,10 +46,11 @@ export function findFollowUpRef(db: Db, id: string) {
   return db.getRepository(FollowUp).findOne({ where: { id }, select: { id: true, siteId: true, title: true, kind: true, facts: true } });
 }
 
-/** Active equipment at a site, or at one of its discharge points (by code). */
-export function equipmentAt(db: Db, siteId: string, pointCode?: string | null) {
+/** Active equipment at a site: one piece (by id), those at one of its discharge points (by code), or all. */
+export function equipmentAt(db: Db, siteId: string, only: { id?: string; pointCode?: string | null } = {}) {
+  const pointCode = only.id ? null : only.pointCode;
   return db.getRepository(Equipment).find({
-    where: { siteId, active: true, ...(pointCode ? { dischargePoint: { code: pointCode } } : {}) },
+    where: { siteId, active: true, ...(only.id ? { id: only.id } : {}), ...(pointCode ? { dischargePoint: { code: pointCode } } : {}) },
     relations: pointCode ? { dischargePoint: true } : {},
     order: { name: 'ASC' },
   });

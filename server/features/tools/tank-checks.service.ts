@@ -3,7 +3,7 @@ import type { CurrentUser } from '../../auth/current-user.js';
 import { assertSiteAllowed, assertSiteVisible } from '../../auth/site-access.js';
 import type { SaveTankCheckRequest, SavedTankCheck, TankCheckStart } from '../../contracts/tools.js';
 import { tankCheckFromSheet } from '../../domain/application-sheet.js';
-import { conflict, invalid, notFound } from '../../errors/app-error.js';
+import { conflict, invalid } from '../../errors/app-error.js';
 import { recordTrail } from '../../kernel/trail/trail.js';
 import { findEquipmentSiteId } from '../equipment/equipment.repository.js';
 import { currentSheets } from './application-sheets.repository.js';
@@ -21,9 +21,7 @@ export class TankChecksService {
     const siteId = followUp?.siteId ?? (await findEquipmentSiteId(this.dataSource, query.equipmentId!));
     assertSiteVisible(user, siteId, 'Equipment');
     const pointCode = followUp?.facts?.pointCode ?? null;
-    let equipment = query.equipmentId
-      ? (await equipmentAt(this.dataSource, siteId!)).filter((item) => item.id === query.equipmentId)
-      : await equipmentAt(this.dataSource, siteId!, pointCode);
+    let equipment = await equipmentAt(this.dataSource, siteId!, { pointCode, id: query.equipmentId });
     // A follow-up whose point has no equipment linked: offer the site's, so the person can choose.
     if (equipment.length === 0 && !query.equipmentId) equipment = await equipmentAt(this.dataSource, siteId!);
     const sheets = await currentSheets(
@@ -109,7 +107,6 @@ export class TankChecksService {
   async get(user: CurrentUser, id: string): Promise<SavedTankCheck> {
     const check = await findTankCheck(this.dataSource, id);
     assertSiteVisible(user, check?.siteId, 'Tank check');
-    if (!check) throw notFound('Tank check');
-    return check;
+    return check!;
   }
 }
